@@ -1,0 +1,140 @@
+// Registry of viscosity laws. A law registers itself with one statement at the
+// bottom of its own file (rheology/laws/<name>.cc):
+//
+//   const LawRegistration<CarreauYasuda> registration{
+//     "Carreau-Yasuda", "formula", "description",
+//     {{"Zero-shear viscosity", "eta_0", &CarreauYasuda::eta_0, "Pa s", "...", Range::above(0.)}, ...},
+//     &evaluate, &yield_stress, &validate};
+//
+// The parameter table feeds the case-file declaration, `lentus laws` and the
+// rheometer fitter, so nothing is written twice.
+#pragma once
+
+#include "rheology/parameter_table.h"
+#include "rheology/viscosity_law.h"
+
+#include <functional>
+#include <memory>
+#include <string>
+#include <vector>
+
+namespace lentus::rheology
+{
+  /// Everything the rest of Lentus knows about one law.
+  struct LawInfo
+  {
+    std::string                name;        ///< registered name, e.g. "Cross"
+    std::string                formula;     ///< eta(gamma_dot) in plain text
+    std::string                description; ///< one or two sentences
+    std::vector<ParameterInfo> parameters;  ///< in the order of `create`'s vector
+    /// Builds the law from values in table order. Checks ranges and the
+    /// relations between parameters; throws InvalidParameter.
+    std::function<std::unique_ptr<ViscosityLaw>(const std::vector<double> &)> create;
+  };
+
+  /// All registered laws, in registration order.
+  class LawRegistry
+  {
+  public:
+    /// Adds a law; throws std::logic_error on a duplicate name.
+    void add(LawInfo law);
+
+    /// The law called `name`; throws InvalidParameter (key "Viscosity law")
+    /// listing the registered names when there is none.
+    const LawInfo &find(const std::string &name) const;
+
+    bool has(const std::string &name) const;
+
+    std::vector<std::string>    names() const;
+    const std::vector<LawInfo> &laws() const { return entries; }
+
+    /// Builds law `name` from values by key, completed by the table's defaults.
+    std::unique_ptr<ViscosityLaw> create(const std::string &name,
+                                         const ParameterValues &values) const;
+
+  private:
+    std::vector<LawInfo> entries;
+  };
+
+  /// The one registry (function-local static: no initialization-order issue).
+  LawRegistry &registry();
+
+  /// A law whose parameters are the struct P, evaluated by free functions.
+  template <class P>
+  class TabledLaw : public ViscosityLaw
+  {
+  public:
+    using Evaluate    = Viscosity (*)(const P &, double);
+    using YieldStress = double (*)(const P &);
+
+    TabledLaw(std::string name_, P parameters_, Evaluate evaluate_, YieldStress yield_)
+      : law_name(std::move(name_))
+      , parameters(parameters_)
+      , evaluate_function(evaluate_)
+      , yield_function(yield_)
+    {}
+
+    Viscosity   evaluate(double gamma_dot) const override { return evaluate_function(parameters, gamma_dot); }
+    double      yield_stress() const override { return yield_function ? yield_function(parameters) : 0.; }
+    std::string name() const override { return law_name; }
+
+  private:
+    std::string law_name;
+    P           parameters;
+    Evaluate    evaluate_function;
+    YieldStress yield_function;
+  };
+
+  /// Registers the law with parameter struct P at static-initialization time.
+  template <class P>
+  struct LawRegistration
+  {
+    struct Row
+    {
+      std::string key;
+      std::string symbol;
+      double P::*member;
+      std::string unit;
+      std::string meaning;
+      Range       range;
+      double      default_value = required;
+    };
+    using Evaluate    = typename TabledLaw<P>::Evaluate;
+    using YieldStress = typename TabledLaw<P>::YieldStress;
+    /// Checks relations between parameters; throws InvalidParameter.
+    using Validate = void (*)(const P &);
+
+    LawRegistration(const std::string &name,
+                    const std::string &formula,
+                    const std::string &description,
+                    const std::vector<Row> &rows,
+                    Evaluate evaluate,
+                    YieldStress yield_stress,
+                    Validate validate)
+    {
+      LawInfo info;
+      info.name        = name;
+      info.formula     = formula;
+      info.description = description;
+      for (const Row &row : rows)
+        info.parameters.push_back({row.key, row.symbol, row.unit, row.meaning, row.range, row.default_value});
+      info.create = [name, rows, evaluate, yield_stress, validate](const std::vector<double> &values)
+        -> std::unique_ptr<ViscosityLaw> {
+        if (values.size() != rows.size())
+          throw std::logic_error("law " + name + " needs " + std::to_string(rows.size()) + " parameters");
+        P parameters{};
+        for (std::size_t i = 0; i < rows.size(); ++i)
+          {
+            if (!rows[i].range.contains(values[i]))
+              throw InvalidParameter(rows[i].key, format_value(values[i]), "out of range for " + name,
+                                     rows[i].range.describe() + " [" + rows[i].unit + "]");
+            parameters.*(rows[i].member) = values[i];
+          }
+        if (validate)
+          validate(parameters);
+        return std::make_unique<TabledLaw<P>>(name, parameters, evaluate, yield_stress);
+      };
+      registry().add(std::move(info));
+    }
+  };
+} // namespace lentus::rheology

@@ -1,0 +1,10 @@
+// The subcommands of `lentus`. Each takes the words after its name and
+// returns an exit code; bad input is thrown as InputError.
+#pragma once
+
+namespace lentus::cli
+{
+  int laws_command(int argc, const char *const *argv, int first);
+  int flow_curve_command(int argc, const char *const *argv, int first);
+  int check_command(int argc, const char *const *argv, int first);
+} // namespace lentus::cli

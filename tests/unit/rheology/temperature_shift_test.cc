@@ -1,0 +1,93 @@
+// Time-temperature superposition: shift factors and the shifted law.
+#include "rheology/law_registry.h"
+#include "rheology/shift/temperature_shift.h"
+
+#include <gmock/gmock.h>
+#include <gtest/gtest.h>
+
+#include <cmath>
+
+using namespace lentus::rheology;
+
+TEST(TemperatureShift, ArrheniusValue)
+{
+  // Arrhenius: a_T = exp(E_a/R (1/T - 1/T_ref)); E_a = 50 kJ/mol, T_ref = 473.15 K, T = 493.15 K,
+  // R = 8.314462618 J/(mol K): a_T = 0.5972307951969157 (hand computation from the formula).
+  const auto shift = TemperatureShift::arrhenius(50e3, 473.15);
+  EXPECT_NEAR(shift.factor(493.15), 0.5972307951969157, 1e-14);
+  EXPECT_DOUBLE_EQ(shift.factor(473.15), 1.);
+  EXPECT_GT(shift.factor(453.15), 1.); // viscosity rises as temperature falls
+}
+
+TEST(TemperatureShift, WlfValue)
+{
+  // WLF: log10 a_T = -C1 (T - T_ref)/(C2 + T - T_ref); with the "universal" constants C1 = 17.44,
+  // C2 = 51.6 K (Williams, Landel & Ferry 1955, J. Am. Chem. Soc. 77:3701, from memory; used here
+  // only as inputs), T_ref = 373.15 K, T = 393.15 K: a_T = 10^(-17.44*20/71.6) = 1.344285827880485e-05.
+  const auto shift = TemperatureShift::wlf(17.44, 51.6, 373.15);
+  EXPECT_NEAR(shift.factor(393.15), 1.344285827880485e-05, 1e-12 * 1.344285827880485e-05);
+  EXPECT_DOUBLE_EQ(shift.factor(373.15), 1.);
+}
+
+TEST(TemperatureShift, WlfEquivalentActivationEnergy)
+{
+  // [derived] (CHECKS.md §0): the local Arrhenius slope of WLF is
+  // E_a(T) = ln(10) R C1 C2 T^2 / (C2 + T - T_ref)^2, i.e. d ln a_T / d(1/T) = E_a(T)/R.
+  const double c1 = 8.86, c2 = 101.6, t_ref = 400., t = 430.;
+  const auto   shift = TemperatureShift::wlf(c1, c2, t_ref);
+  const double h     = 1e-3; // step in T [K]
+  const double slope = (std::log(shift.factor(t + h)) - std::log(shift.factor(t - h))) / (1. / (t + h) - 1. / (t - h));
+  const double expected = std::log(10.) * gas_constant * c1 * c2 * t * t / std::pow(c2 + t - t_ref, 2) / gas_constant;
+  EXPECT_NEAR(slope, expected, 1e-6 * expected);
+}
+
+TEST(TemperatureShift, ShiftedCarreauScalesZeroShearViscosityAndTimeConstant)
+{
+  // Time-temperature superposition (DESIGN.md; CHECKS.md §0): eta(gamma_dot, T) = a_T eta(a_T gamma_dot, T_ref),
+  // which for Carreau-Yasuda is the same law with eta_0 and lambda both multiplied by a_T.
+  const double a   = 0.37;
+  const auto   ref = std::shared_ptr<const ViscosityLaw>(registry().create(
+    "Carreau-Yasuda", {{"Zero-shear viscosity", 2000.}, {"Time constant", 0.5}, {"Flow index", 0.4}, {"Yasuda exponent", 1.2}}));
+  const auto direct = registry().create(
+    "Carreau-Yasuda",
+    {{"Zero-shear viscosity", 2000. * a}, {"Time constant", 0.5 * a}, {"Flow index", 0.4}, {"Yasuda exponent", 1.2}});
+  const auto hot = shifted(ref, a);
+  for (const double g : {1e-3, 0.1, 2., 300.})
+    {
+      EXPECT_NEAR(hot->evaluate(g).value, direct->evaluate(g).value, 1e-12 * direct->evaluate(g).value);
+      EXPECT_NEAR(hot->evaluate(g).derivative, direct->evaluate(g).derivative,
+                  1e-12 * std::abs(direct->evaluate(g).derivative));
+    }
+}
+
+TEST(TemperatureShift, YieldStressIsNotShifted)
+{
+  const auto ref = std::shared_ptr<const ViscosityLaw>(registry().create(
+    "Bingham", {{"Plastic viscosity", 1.}, {"Yield stress", 7.}, {"Regularization exponent", 100.}}));
+  EXPECT_EQ(shifted(ref, 0.5)->yield_stress(), 7.);
+}
+
+TEST(TemperatureShift, BadTemperatures)
+{
+  const auto wlf = TemperatureShift::wlf(17.44, 51.6, 373.15);
+  try
+    {
+      wlf.factor(321.55); // = T_ref - C2: the singularity
+      FAIL();
+    }
+  catch (const InvalidParameter &error)
+    {
+      EXPECT_EQ(error.key, "Temperature");
+      EXPECT_THAT(error.what(), ::testing::HasSubstr("WLF singularity"));
+      EXPECT_THAT(error.what(), ::testing::HasSubstr("T > 321.55 K"));
+    }
+  EXPECT_THROW(wlf.factor(300.), InvalidParameter);
+  EXPECT_THROW(wlf.factor(321.56), InvalidParameter); // 0.01 K above: a_T = 10^90000 overflows
+  EXPECT_NO_THROW(wlf.factor(331.55));                // 10 K above: a_T = 10^72.5, finite
+  const auto arrhenius = TemperatureShift::arrhenius(4e4, 450.);
+  EXPECT_THROW(arrhenius.factor(0.), InvalidParameter);
+  EXPECT_THROW(arrhenius.factor(-10.), InvalidParameter);
+  EXPECT_THROW(arrhenius.factor(std::nan("")), InvalidParameter);
+  EXPECT_THROW(arrhenius.factor(HUGE_VAL), InvalidParameter);
+  EXPECT_EQ(TemperatureShift().factor(std::nan("")), 1.); // no shift: temperature not needed
+}
