@@ -7,4 +7,6 @@ namespace lentus::cli
   int laws_command(int argc, const char *const *argv, int first);
   int flow_curve_command(int argc, const char *const *argv, int first);
   int check_command(int argc, const char *const *argv, int first);
+  int fit_command(int argc, const char *const *argv, int first);
+  int run_command(int argc, const char *const *argv, int first);
 } // namespace lentus::cli

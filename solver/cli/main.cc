@@ -22,7 +22,9 @@ axisymmetric geometries.
 commands:
   laws         list the viscosity laws and temperature shifts with their parameters and units
   flow-curve   print (and draw) the flow curve of the fluid in a case file
+  run          solve the flow in a case file and write its results folder
   check        validate a case file without solving
+  fit          fit viscosity laws to rheometer data (confidence intervals, ranking, case section)
 
 `lentus COMMAND --help` describes each command.
 Exit codes: 0 success, 1 other failure, 2 bad input, 3 solver did not converge.
@@ -52,10 +54,14 @@ int main(int argc, char **argv)
         return cli::laws_command(argc, argv, 2);
       if (command == "flow-curve")
         return cli::flow_curve_command(argc, argv, 2);
+      if (command == "run")
+        return cli::run_command(argc, argv, 2);
       if (command == "check")
         return cli::check_command(argc, argv, 2);
+      if (command == "fit")
+        return cli::fit_command(argc, argv, 2);
       throw InputError("command line", 0,
-                       "unknown command '" + command + "'; allowed: laws, flow-curve, check (see lentus --help)");
+                       "unknown command '" + command + "'; allowed: laws, flow-curve, check, fit (see lentus --help)");
     }
   catch (const InputError &error)
     {

@@ -1,5 +1,6 @@
 #include "solver/input/case_schema.h"
 
+#include "solver/input/flow_case.h"
 #include "solver/input/fluid_section.h"
 
 namespace lentus::input
@@ -9,6 +10,7 @@ namespace lentus::input
     static const CaseSchema schema = [] {
       CaseSchema declared;
       declare_fluid(declared);
+      declare_flow_case(declared);
       return declared;
     }();
     return schema;

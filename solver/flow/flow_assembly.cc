@@ -1,0 +1,188 @@
+// Residual and Jacobian of steady generalized-Newtonian flow.
+//
+// With U, L the velocity and its gradient (solver/formulation/kinematics.h),
+// D = sym L, gamma_dot = sqrt(2 D:D), w the volume weight, the residual for a
+// velocity test function (U_v, L_v) and a pressure test function q is
+//   R_v = int [ 2 eta D:L_v                      (1) viscous stress
+//               + rho (L U) . U_v                (2) inertia (centrifugal, Coriolis included)
+//               - p tr L_v                       (3) pressure
+//               - rho g . U_v ] w dx             (4) gravity
+//         + int_{pressure roles} p_set (n . U_v) w ds   (5) set normal stress
+//   R_q = - int q tr L w dx                      (6) continuity
+// The Jacobian in direction (U_d, L_d, p_d):
+//   int [ 2 eta D_d:D_v + 4 eta'/gamma_dot (D:D_d)(D:D_v)   (1') Newton; Picard keeps the first part
+//         + rho (L_d U + L U_d) . U_v                         (2') Newton; Picard (Oseen) keeps L_d U
+//         - p_d tr L_v - q tr L_d ] w dx                      (3') (6')
+#include "solver/flow/flow_state.h"
+
+#include <deal.II/base/quadrature_lib.h>
+#include <deal.II/fe/fe_values.h>
+#include <deal.II/lac/full_matrix.h>
+#include <deal.II/lac/vector.h>
+
+#include <cmath>
+
+namespace lentus::flow
+{
+  using namespace dealii;
+
+  double assemble(FlowState &state, const Vector &evaluation_point, const Linearization linearization)
+  {
+    const bool             with_matrix = linearization != Linearization::none;
+    const bool             newton      = linearization == Linearization::newton;
+    const FESystem<2>     &fe          = state.fe;
+    const unsigned int     n_velocity  = state.n_velocity;
+    const FormulationKind  kind        = state.kind;
+    const QGauss<2>        quadrature(fe.degree + 1);
+    const QGauss<1>        face_quadrature(fe.degree + 1);
+    FEValues<2>            fe_values(fe, quadrature,
+                                     update_values | update_gradients | update_quadrature_points | update_JxW_values);
+    FEFaceValues<2>        face_values(fe, face_quadrature,
+                                       update_values | update_normal_vectors | update_quadrature_points |
+                                         update_JxW_values);
+    const unsigned int     dofs_per_cell = fe.n_dofs_per_cell();
+    const unsigned int     n_q           = quadrature.size();
+    FullMatrix<double>     cell_matrix(dofs_per_cell, dofs_per_cell), cell_mass(dofs_per_cell, dofs_per_cell);
+    dealii::Vector<double> cell_residual(dofs_per_cell);
+    std::vector<types::global_dof_index> dof_indices(dofs_per_cell);
+    std::vector<dealii::Vector<double>>  values(n_q, dealii::Vector<double>(n_velocity + 1));
+    std::vector<std::vector<Tensor<1, 2>>> gradients(n_q, std::vector<Tensor<1, 2>>(n_velocity + 1));
+    std::vector<Kinematics> shape(dofs_per_cell);
+    std::vector<double>     shape_divergence(dofs_per_cell), shape_pressure(dofs_per_cell);
+    std::vector<Tensor<2, 3>> shape_strain(dofs_per_cell);
+
+    std::map<types::boundary_id, double> set_pressure;
+    for (const input::BoundaryCondition &bc : state.flow.conditions)
+      if (bc.type == input::BoundaryCondition::Type::pressure)
+        set_pressure[state.flow.geometry->id_of_role(bc.role)] = bc.pressure;
+
+    const double rho     = state.density;
+    Tensor<1, 3> gravity;
+    gravity[0] = state.flow.gravity[0];
+    gravity[2] = state.flow.gravity[1];
+
+    if (with_matrix)
+      {
+        state.system_matrix = 0.;
+        state.pressure_mass = 0.;
+      }
+    state.residual = 0.;
+
+    for (const auto &cell : state.dof_handler.active_cell_iterators())
+      {
+        if (!cell->is_locally_owned())
+          continue;
+        fe_values.reinit(cell);
+        cell->get_dof_indices(dof_indices);
+        fe_values.get_function_values(evaluation_point, values);
+        fe_values.get_function_gradients(evaluation_point, gradients);
+        cell_matrix   = 0.;
+        cell_mass     = 0.;
+        cell_residual = 0.;
+
+        for (unsigned int q = 0; q < n_q; ++q)
+          {
+            const Point<2> &x = fe_values.quadrature_point(q);
+            const double    w = volume_weight(kind, x) * fe_values.JxW(q);
+
+            const Kinematics   u = kinematics(kind, x, &values[q][0], gradients[q].data());
+            const Tensor<2, 3> D = strain_rate(u.L);
+            const double       gamma_dot = std::sqrt(2. * contract(D, D));
+            const auto         eta       = state.law->evaluate(gamma_dot);
+            const double       p         = values[q][n_velocity];
+            const Tensor<1, 3> convection = u.L * u.U;
+            // d eta/d gamma_dot * d gamma_dot / dD: the Newton term needs 4 eta'/gamma_dot.
+            const double newton_factor = (newton && gamma_dot > 1e-300) ? 4. * eta.derivative / gamma_dot : 0.;
+
+            for (unsigned int i = 0; i < dofs_per_cell; ++i)
+              {
+                const unsigned int component = fe.system_to_component_index(i).first;
+                shape[i]                     = Kinematics();
+                shape_pressure[i]            = 0.;
+                if (component < n_velocity)
+                  {
+                    double       shape_values[3] = {0., 0., 0.};
+                    Tensor<1, 2> shape_gradients[3];
+                    shape_values[component]    = fe_values.shape_value(i, q);
+                    shape_gradients[component] = fe_values.shape_grad(i, q);
+                    shape[i]                   = kinematics(kind, x, shape_values, shape_gradients);
+                  }
+                else
+                  shape_pressure[i] = fe_values.shape_value(i, q);
+                shape_strain[i]     = strain_rate(shape[i].L);
+                shape_divergence[i] = trace(shape[i].L);
+              }
+
+            for (unsigned int i = 0; i < dofs_per_cell; ++i)
+              {
+                // (1) + (2) + (3) + (4) for velocity tests, (6) for pressure tests
+                cell_residual(i) += (2. * eta.value * contract(D, shape_strain[i]) +
+                                     rho * convection * shape[i].U - p * shape_divergence[i] -
+                                     rho * gravity * shape[i].U - shape_pressure[i] * trace(u.L)) *
+                                    w;
+                if (!with_matrix)
+                  continue;
+                const double D_dot_Di = contract(D, shape_strain[i]);
+                for (unsigned int j = 0; j < dofs_per_cell; ++j)
+                  {
+                    double entry = 2. * eta.value * contract(shape_strain[j], shape_strain[i]) // (1')
+                                   + newton_factor * contract(D, shape_strain[j]) * D_dot_Di   // (1') Newton
+                                   - shape_pressure[j] * shape_divergence[i]                   // (3')
+                                   - shape_pressure[i] * shape_divergence[j];                  // (6')
+                    if (rho != 0.)
+                      {
+                        Tensor<1, 3> linearized = shape[j].L * u.U; // (2') Oseen part
+                        if (newton)
+                          linearized += u.L * shape[j].U;
+                        entry += rho * linearized * shape[i].U;
+                      }
+                    cell_matrix(i, j) += entry * w;
+                    // 1/eta-weighted pressure mass matrix for the Schur-complement preconditioner
+                    cell_mass(i, j) += shape_pressure[i] * shape_pressure[j] / eta.value * w;
+                  }
+              }
+          }
+
+        // (5) set normal stress on pressure roles
+        for (const auto face_no : cell->face_indices())
+          if (cell->face(face_no)->at_boundary())
+            {
+              const auto found = set_pressure.find(cell->face(face_no)->boundary_id());
+              if (found == set_pressure.end())
+                continue;
+              face_values.reinit(cell, face_no);
+              for (unsigned int q = 0; q < face_quadrature.size(); ++q)
+                {
+                  const Point<2>     &x = face_values.quadrature_point(q);
+                  const Tensor<1, 2> &n = face_values.normal_vector(q);
+                  const double        w = volume_weight(kind, x) * face_values.JxW(q);
+                  for (unsigned int i = 0; i < dofs_per_cell; ++i)
+                    {
+                      const unsigned int component = fe.system_to_component_index(i).first;
+                      if (component < 2)
+                        cell_residual(i) += found->second * n[component] * face_values.shape_value(i, q) * w;
+                    }
+                }
+            }
+
+        // The system is J d = -R.
+        cell_residual *= -1.;
+        if (with_matrix)
+          {
+            state.zero_constraints.distribute_local_to_global(cell_matrix, cell_residual, dof_indices,
+                                                              state.system_matrix, state.residual);
+            state.zero_constraints.distribute_local_to_global(cell_mass, dof_indices, state.pressure_mass);
+          }
+        else
+          state.zero_constraints.distribute_local_to_global(cell_residual, dof_indices, state.residual);
+      }
+
+    if (with_matrix)
+      {
+        state.system_matrix.compress(VectorOperation::add);
+        state.pressure_mass.compress(VectorOperation::add);
+      }
+    state.residual.compress(VectorOperation::add);
+    return state.residual.l2_norm();
+  }
+} // namespace lentus::flow

@@ -1,0 +1,183 @@
+// Nonlinear solution: Picard steps while far from the solution, then Newton
+// with the exact Jacobian, both with a backtracking line search on the
+// residual norm; continuation in the regularization exponent M (or the flow
+// index) when a direct attempt fails.
+#include "rheology/law_registry.h"
+#include "rheology/shift/temperature_shift.h"
+#include "solver/errors.h"
+#include "solver/flow/flow_state.h"
+
+#include <deal.II/base/timer.h>
+
+#include <cmath>
+#include <cstdio>
+
+namespace lentus::flow
+{
+  using namespace dealii;
+
+  namespace
+  {
+    std::string format(const char *pattern, const double a, const double b = 0., const double c = 0.)
+    {
+      char buffer[200];
+      std::snprintf(buffer, sizeof buffer, pattern, a, b, c);
+      return buffer;
+    }
+
+    /// The fluid's law with one parameter replaced (continuation), at the case's temperature.
+    std::shared_ptr<const rheology::ViscosityLaw> law_with(const input::Fluid &fluid,
+                                                           const std::string &key,
+                                                           const double value)
+    {
+      rheology::ParameterValues parameters = fluid.parameters;
+      parameters[key]                      = value;
+      std::shared_ptr<const rheology::ViscosityLaw> law = rheology::registry().create(fluid.law_name, parameters);
+      if (fluid.shift_factor != 1.)
+        law = rheology::shifted(law, fluid.shift_factor);
+      return law;
+    }
+
+    /// One Newton/Picard solve from state.solution; true if converged.
+    bool iterate(FlowState &state, const bool direct, SolveReport &report, std::string &why)
+    {
+      const input::FlowCase &flow = state.flow;
+      Vector                 current(state.owned, state.comm), update(state.owned, state.comm),
+        trial(state.owned, state.comm);
+      Vector ghosted(state.owned, state.relevant, state.comm);
+      current                 = state.solution;
+      const double first      = assemble(state, state.solution, Linearization::none);
+      double       residual   = first;
+      unsigned int picard     = 0;
+      const double target     = std::max(flow.relative_tolerance * first, flow.absolute_tolerance);
+      state.log.line(format("  initial residual %.3e", first));
+      if (!std::isfinite(first))
+        {
+          why = "the residual of the initial iterate is not finite";
+          return false;
+        }
+      if (residual <= target)
+        return true;
+      for (unsigned int iteration = 1; iteration <= flow.max_iterations; ++iteration)
+        {
+          Timer              timer;
+          const Linearization linearization =
+            (residual / first > flow.picard_until && picard < flow.max_picard_steps) ? Linearization::picard :
+                                                                                      Linearization::newton;
+          if (linearization == Linearization::picard)
+            ++picard;
+          assemble(state, state.solution, linearization);
+          const unsigned int linear_iterations = solve_linear(state, update, direct);
+          report.linear_iterations += linear_iterations;
+
+          // Backtracking: accept the first step length that lowers the residual norm enough.
+          double step = 1., trial_residual = 0.;
+          bool   accepted = false;
+          for (int halving = 0; halving <= 10; ++halving, step *= 0.5)
+            {
+              trial = current;
+              trial.add(step, update);
+              state.nonzero_constraints.distribute(trial);
+              ghosted        = trial;
+              trial_residual = assemble(state, ghosted, Linearization::none);
+              if (std::isfinite(trial_residual) && trial_residual < (1. - 1e-4 * step) * residual)
+                {
+                  accepted = true;
+                  break;
+                }
+            }
+          if (!accepted && linearization == Linearization::picard)
+            {
+              // A Picard step need not lower the residual: take it whole, as fixed-point iteration does.
+              step  = 1.;
+              trial = current;
+              trial.add(1., update);
+              state.nonzero_constraints.distribute(trial);
+              ghosted        = trial;
+              trial_residual = assemble(state, ghosted, Linearization::none);
+              accepted       = std::isfinite(trial_residual);
+            }
+          if (!accepted)
+            {
+              why = "the line search found no step that lowers the residual (iteration " + std::to_string(iteration) +
+                    ", residual " + format("%.3e", residual) + ")";
+              return false;
+            }
+          current        = trial;
+          state.solution = ghosted;
+          residual       = trial_residual;
+          const char *name = linearization == Linearization::picard ? "Picard" : "Newton";
+          report.iterations.push_back({iteration, name, residual, step, linear_iterations, timer.wall_time()});
+          state.log.line(format("  %3.0f ", iteration) + name +
+                         format("  residual %.3e  step %.3g", residual, step) +
+                         format("  linear iterations %.0f  %.2f s", linear_iterations, timer.wall_time()));
+          if (residual <= target)
+            return true;
+        }
+      why = "no convergence in " + std::to_string(flow.max_iterations) + " iterations (residual " +
+            format("%.3e", residual) + ", target " + format("%.3e", target) + ")";
+      return false;
+    }
+  } // namespace
+
+  SolveReport solve_nonlinear(FlowState &state)
+  {
+    const input::FlowCase &flow = state.flow;
+    SolveReport            report;
+    const auto             n_dofs = state.dof_handler.n_dofs();
+    const bool             direct = flow.linear_solver == "direct" ||
+                        (flow.linear_solver == "automatic" && n_dofs <= flow.direct_limit);
+    report.linear_solver = direct ? "direct (MUMPS)" : "FGMRES, block-triangular preconditioner";
+    state.log.line("Nonlinear solve: " + std::to_string(n_dofs) + " unknowns, linear solver " + report.linear_solver);
+
+    initial_solution(state);
+    std::string why;
+    if (iterate(state, direct, report, why))
+      {
+        report.converged = true;
+        return report;
+      }
+    state.log.line("  direct attempt failed: " + why);
+
+    // Continuation from an easier fluid, each step starting from the previous solution.
+    const input::Fluid &fluid = flow.fluid;
+    std::string         key;
+    std::vector<double> path;
+    if (fluid.parameters.count("Regularization exponent") && fluid.parameters.at("Yield stress") > 0.)
+      {
+        key            = "Regularization exponent";
+        const double M = fluid.parameters.at(key);
+        for (int k = 4; k >= 0; --k)
+          path.push_back(M * std::pow(10., -0.75 * k));
+      }
+    else if (fluid.parameters.count("Flow index") && fluid.parameters.at("Flow index") != 1.)
+      {
+        key            = "Flow index";
+        const double n = fluid.parameters.at(key);
+        for (int k = 0; k <= 5; ++k)
+          path.push_back(1. + (n - 1.) * k / 5.);
+      }
+    if (!flow.continuation || key.empty())
+      {
+        report.reason = why;
+        return report;
+      }
+    state.log.line("Continuation in " + key + ":");
+    initial_solution(state);
+    for (const double value : path)
+      {
+        state.law = law_with(fluid, key, value);
+        report.continuation_steps.push_back(key + " = " + rheology::format_short(value));
+        state.log.line(" " + key + " = " + rheology::format_short(value));
+        if (!iterate(state, direct, report, why))
+          {
+            state.law     = fluid.law;
+            report.reason = "continuation in " + key + " failed at " + rheology::format_short(value) + ": " + why;
+            return report;
+          }
+      }
+    state.law        = fluid.law;
+    report.converged = true;
+    return report;
+  }
+} // namespace lentus::flow

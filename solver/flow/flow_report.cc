@@ -1,0 +1,256 @@
+// Design numbers by integration over cells and boundary roles, and field output.
+#include "solver/flow/flow_report.h"
+
+#include <deal.II/base/quadrature_lib.h>
+#include <deal.II/dofs/dof_tools.h>
+#include <deal.II/fe/fe_values.h>
+#include <deal.II/numerics/data_out.h>
+#include <deal.II/numerics/data_postprocessor.h>
+
+#include <cmath>
+#include <fstream>
+
+namespace lentus::flow
+{
+  using namespace dealii;
+
+  namespace
+  {
+    /// Shear rate, viscosity, von Mises stress |tau| = eta gamma_dot and the unyielded indicator.
+    class DerivedFields : public DataPostprocessor<2>
+    {
+    public:
+      explicit DerivedFields(const FlowState &state_) : state(state_) {}
+
+      void evaluate_vector_field(const DataPostprocessorInputs::Vector<2> &inputs,
+                                 std::vector<dealii::Vector<double>> &computed) const override
+      {
+        const double tau_y = state.law->yield_stress();
+        for (unsigned int q = 0; q < inputs.solution_values.size(); ++q)
+          {
+            double       values[3];
+            Tensor<1, 2> gradients[3];
+            for (unsigned int c = 0; c < state.n_velocity; ++c)
+              {
+                values[c]    = inputs.solution_values[q][c];
+                gradients[c] = inputs.solution_gradients[q][c];
+              }
+            const Point<2> &x = inputs.evaluation_points[q];
+            // On the axis r = 0 the hoop terms are limits; evaluate just off it.
+            const Point<2>     at(is_axisymmetric(state.kind) ? std::max(x[0], 1e-12) : x[0], x[1]);
+            const Kinematics   u         = kinematics(state.kind, at, values, gradients);
+            const Tensor<2, 3> D         = strain_rate(u.L);
+            const double       gamma_dot = std::sqrt(2. * contract(D, D));
+            const double       eta       = state.law->evaluate(gamma_dot).value;
+            computed[q](0)               = gamma_dot;
+            computed[q](1)               = eta;
+            computed[q](2)               = eta * gamma_dot;
+            computed[q](3)               = (tau_y > 0. && eta * gamma_dot < tau_y) ? 1. : 0.;
+            computed[q](4)               = u.U.norm();
+          }
+      }
+
+      std::vector<std::string> get_names() const override
+      {
+        return {"shear_rate", "viscosity", "von_Mises_stress", "unyielded", "speed"};
+      }
+
+      UpdateFlags get_needed_update_flags() const override
+      {
+        return update_values | update_gradients | update_quadrature_points;
+      }
+
+    private:
+      const FlowState &state;
+    };
+  } // namespace
+
+  std::vector<DesignNumber> design_numbers(FlowState &state)
+  {
+    const bool        axisymmetric = is_axisymmetric(state.kind);
+    const double      factor       = axisymmetric ? 2. * M_PI : 1.;
+    const std::string per          = axisymmetric ? "" : "/m";
+    const std::string volume_unit  = axisymmetric ? "m^3" : "m^2";
+    const std::string flow_unit    = axisymmetric ? "m^3/s" : "m^2/s";
+    const unsigned int pressure_component = state.n_velocity;
+
+    const QGauss<2>  quadrature(state.fe.degree + 1);
+    const QGauss<1>  face_quadrature(state.fe.degree + 1);
+    FEValues<2>      fe_values(state.fe, quadrature,
+                               update_values | update_gradients | update_quadrature_points | update_JxW_values);
+    FEFaceValues<2>  face_values(state.fe, face_quadrature,
+                                 update_values | update_gradients | update_quadrature_points |
+                                   update_normal_vectors | update_JxW_values);
+    std::vector<dealii::Vector<double>>    values(quadrature.size(), dealii::Vector<double>(state.n_velocity + 1));
+    std::vector<std::vector<Tensor<1, 2>>> gradients(quadrature.size(), std::vector<Tensor<1, 2>>(state.n_velocity + 1));
+
+    // Mean-free pressure when it was pinned: p -= int p w / int w.
+    if (state.pressure_pinned)
+      {
+        double integral[2] = {0., 0.};
+        for (const auto &cell : state.dof_handler.active_cell_iterators())
+          if (cell->is_locally_owned())
+            {
+              fe_values.reinit(cell);
+              fe_values.get_function_values(state.solution, values);
+              for (unsigned int q = 0; q < quadrature.size(); ++q)
+                {
+                  const double w = volume_weight(state.kind, fe_values.quadrature_point(q)) * fe_values.JxW(q);
+                  integral[0] += values[q][pressure_component] * w;
+                  integral[1] += w;
+                }
+            }
+        Utilities::MPI::sum(ArrayView<const double>(integral, 2), state.comm, ArrayView<double>(integral, 2));
+        const double   mean = integral[0] / integral[1];
+        const IndexSet pressure_dofs =
+          DoFTools::extract_dofs(state.dof_handler, state.fe.component_mask(FEValuesExtractors::Scalar(pressure_component)));
+        Vector owned(state.owned, state.comm);
+        owned = state.solution;
+        for (const auto index : pressure_dofs & state.owned)
+          owned[index] -= mean;
+        owned.compress(VectorOperation::insert);
+        state.solution = owned;
+      }
+
+    // Cell integrals: volume, dissipation, unyielded, maximum speed.
+    const double tau_y = state.law->yield_stress();
+    double       sums[5] = {0., 0., 0., 0., 0.}; // area, volume, dissipation, unyielded area, unyielded volume
+    double       max_speed = 0.;
+    for (const auto &cell : state.dof_handler.active_cell_iterators())
+      if (cell->is_locally_owned())
+        {
+          fe_values.reinit(cell);
+          fe_values.get_function_values(state.solution, values);
+          fe_values.get_function_gradients(state.solution, gradients);
+          for (unsigned int q = 0; q < quadrature.size(); ++q)
+            {
+              const Point<2>    &x = fe_values.quadrature_point(q);
+              const double       w = volume_weight(state.kind, x) * fe_values.JxW(q);
+              const Kinematics   u = kinematics(state.kind, x, &values[q][0], gradients[q].data());
+              const Tensor<2, 3> D = strain_rate(u.L);
+              const double       gamma_dot = std::sqrt(2. * contract(D, D));
+              const double       eta       = state.law->evaluate(gamma_dot).value;
+              sums[0] += fe_values.JxW(q);
+              sums[1] += w;
+              sums[2] += eta * gamma_dot * gamma_dot * w; // 2 eta D:D = eta gamma_dot^2
+              if (tau_y > 0. && eta * gamma_dot < tau_y)
+                {
+                  sums[3] += fe_values.JxW(q);
+                  sums[4] += w;
+                }
+              max_speed = std::max(max_speed, u.U.norm());
+            }
+        }
+    Utilities::MPI::sum(ArrayView<const double>(sums, 5), state.comm, ArrayView<double>(sums, 5));
+    max_speed = Utilities::MPI::max(max_speed, state.comm);
+
+    // Boundary integrals per role: flux, weighted pressure, length, torque, power.
+    const auto                         roles = state.flow.geometry->boundary_roles();
+    std::map<types::boundary_id, std::array<double, 5>> role_sums;
+    for (const auto &[name, id] : roles)
+      role_sums[id] = {0., 0., 0., 0., 0.};
+    for (const auto &cell : state.dof_handler.active_cell_iterators())
+      if (cell->is_locally_owned())
+        for (const auto face_no : cell->face_indices())
+          if (cell->face(face_no)->at_boundary())
+            {
+              face_values.reinit(cell, face_no);
+              face_values.get_function_values(state.solution, values);
+              face_values.get_function_gradients(state.solution, gradients);
+              auto &sum = role_sums[cell->face(face_no)->boundary_id()];
+              for (unsigned int q = 0; q < face_quadrature.size(); ++q)
+                {
+                  const Point<2> x(is_axisymmetric(state.kind) ? std::max(face_values.quadrature_point(q)[0], 1e-300) :
+                                                                 face_values.quadrature_point(q)[0],
+                                   face_values.quadrature_point(q)[1]);
+                  const double       w = volume_weight(state.kind, x) * face_values.JxW(q);
+                  const Kinematics   u = kinematics(state.kind, x, &values[q][0], gradients[q].data());
+                  const Tensor<2, 3> D = strain_rate(u.L);
+                  const double       gamma_dot = std::sqrt(2. * contract(D, D));
+                  const double       eta       = state.law->evaluate(gamma_dot).value;
+                  const double       p         = values[q][pressure_component];
+                  Tensor<1, 3>       n;
+                  n[0]                         = face_values.normal_vector(q)[0];
+                  n[2]                         = face_values.normal_vector(q)[1];
+                  Tensor<2, 3> sigma           = 2. * eta * D;
+                  for (unsigned int d = 0; d < 3; ++d)
+                    sigma[d][d] -= p;
+                  const Tensor<1, 3> traction = sigma * n; // exerted on the fluid by the boundary
+                  sum[0] += u.U * n * w;
+                  sum[1] += p * w;
+                  sum[2] += w;
+                  // Torque about the axis (swirl: r * t_theta) or about the origin (planar: x t_y - y t_x).
+                  sum[3] += (state.kind == FormulationKind::planar ? x[0] * traction[2] - x[1] * traction[0] :
+                                                                      x[0] * traction[1]) *
+                            w;
+                  sum[4] += traction * u.U * w;
+                }
+            }
+    for (auto &[id, sum] : role_sums)
+      Utilities::MPI::sum(ArrayView<const double>(sum.data(), 5), state.comm, ArrayView<double>(sum.data(), 5));
+
+    std::vector<DesignNumber> numbers;
+    double                    power_in = 0.;
+    for (const std::string &role : state.flow.geometry->role_names())
+      {
+        const auto &sum = role_sums.at(roles.at(role));
+        numbers.push_back({"flow rate out through " + role, factor * sum[0], flow_unit});
+        numbers.push_back({"mean pressure on " + role, sum[2] > 0. ? sum[1] / sum[2] : 0., "Pa"});
+        numbers.push_back({"torque on the fluid from " + role, factor * sum[3], "N m" + per});
+        power_in += factor * sum[4];
+      }
+    if (roles.count("inlet") && roles.count("outlet"))
+      {
+        const auto &in = role_sums.at(roles.at("inlet")), &out = role_sums.at(roles.at("outlet"));
+        numbers.push_back({"pressure drop inlet to outlet", in[1] / in[2] - out[1] / out[2], "Pa"});
+      }
+    numbers.push_back({"power input through boundaries", power_in, "W" + per});
+    numbers.push_back({"viscous dissipation", factor * sums[2], "W" + per});
+    numbers.push_back({"maximum speed", max_speed, "m/s"});
+    numbers.push_back({"flow area", sums[0], "m^2"});
+    if (axisymmetric)
+      numbers.push_back({"flow volume", factor * sums[1], "m^3"});
+    if (tau_y > 0.)
+      {
+        numbers.push_back({"unyielded area fraction", sums[3] / sums[0], "-"});
+        if (axisymmetric)
+          numbers.push_back({"unyielded volume fraction", sums[4] / sums[1], "-"});
+      }
+    return numbers;
+  }
+
+  void write_fields(const FlowState &state, const std::string &folder)
+  {
+    DataOut<2>               data_out;
+    std::vector<std::string> names;
+    std::vector<DataComponentInterpretation::DataComponentInterpretation> interpretation;
+    for (unsigned int c = 0; c < 2; ++c)
+      {
+        names.emplace_back("velocity");
+        interpretation.push_back(DataComponentInterpretation::component_is_part_of_vector);
+      }
+    if (state.n_velocity == 3)
+      {
+        names.emplace_back("swirl_velocity");
+        interpretation.push_back(DataComponentInterpretation::component_is_scalar);
+      }
+    names.emplace_back("pressure");
+    interpretation.push_back(DataComponentInterpretation::component_is_scalar);
+    data_out.attach_dof_handler(state.dof_handler);
+    data_out.add_data_vector(state.solution, names, DataOut<2>::type_dof_data, interpretation);
+    const DerivedFields derived(state);
+    data_out.add_data_vector(state.solution, derived);
+    dealii::Vector<float> partition(state.triangulation.n_active_cells());
+    for (const auto &cell : state.triangulation.active_cell_iterators())
+      if (cell->is_locally_owned())
+        partition(cell->active_cell_index()) = static_cast<float>(state.rank);
+    data_out.add_data_vector(partition, "partition");
+    data_out.build_patches(state.fe.degree);
+    const std::string record = data_out.write_vtu_with_pvtu_record(folder + "/", "fields", 0, state.comm, 2, 0);
+    if (state.rank == 0)
+      {
+        std::ofstream pvd(folder + "/fields.pvd");
+        DataOutBase::write_pvd_record(pvd, {{0., record}});
+      }
+  }
+} // namespace lentus::flow

@@ -1,0 +1,133 @@
+// The table of contents of a flow run: mesh, unknowns, nonlinear solve,
+// design numbers, outputs written whole into the case folder.
+#include "solver/flow/flow_run.h"
+
+#include "rheology/parameter_table.h"
+#include "solver/errors.h"
+#include "solver/flow/flow_report.h"
+#include "solver/flow/flow_state.h"
+#include "solver/report/atomic_file.h"
+#include "solver/version.h"
+
+#include <deal.II/base/mpi.h>
+#include <deal.II/base/timer.h>
+
+#include <cstdio>
+#include <filesystem>
+#include <sstream>
+
+namespace lentus::flow
+{
+  namespace
+  {
+    std::string json_string(const std::string &text)
+    {
+      std::string out = "\"";
+      for (const char c : text)
+        out += c == '"' ? std::string("\\\"") : c == '\\' ? std::string("\\\\") : c == '\n' ? std::string("\\n") : std::string(1, c);
+      return out + "\"";
+    }
+
+    std::string json_number(const double value)
+    {
+      if (!std::isfinite(value))
+        return "null";
+      char buffer[40];
+      std::snprintf(buffer, sizeof buffer, "%.12g", value);
+      return buffer;
+    }
+
+    const char *caution =
+      "Results are estimates from a model: check them against measurements. They never replace pressure-relief "
+      "devices, local pressure-equipment and machinery codes, or review by a licensed engineer.";
+  } // namespace
+
+  int run_flow_case(const input::FlowCase &flow, MPI_Comm communicator)
+  {
+    dealii::Timer timer;
+    FlowState     state(flow, communicator);
+    state.log.line("lentus " + std::string(version) + ": case " + flow.case_file + " on " +
+                   std::to_string(state.n_ranks) + " rank(s)");
+    state.log.line("Fluid: " + flow.fluid.law_name + "; formulation: " + to_string(flow.formulation) +
+                   (flow.inertia ? ", with inertia" : ", creeping flow"));
+
+    setup_mesh_and_dofs(state);
+    state.log.line("Mesh: " + std::to_string(state.triangulation.n_global_active_cells()) + " cells, " +
+                   std::to_string(state.dof_handler.n_dofs()) + " unknowns (Taylor-Hood Q" +
+                   std::to_string(flow.velocity_degree) + "-Q" + std::to_string(flow.velocity_degree - 1) + ")");
+
+    SolveReport report;
+    try
+      {
+        report = solve_nonlinear(state);
+      }
+    catch (const NoConvergence &error)
+      {
+        report.converged = false;
+        report.reason    = error.what();
+      }
+    const std::vector<DesignNumber> numbers = design_numbers(state);
+    const double                    seconds = timer.wall_time();
+
+    // Everything goes to a partial folder first, renamed when complete.
+    const std::filesystem::path folder(flow.output_folder);
+    const std::filesystem::path partial = folder.string() + ".partial";
+    if (state.rank == 0)
+      {
+        std::filesystem::remove_all(partial);
+        std::filesystem::create_directories(partial);
+      }
+    MPI_Barrier(communicator);
+    if (flow.write_fields)
+      write_fields(state, partial.string());
+
+    state.log.line(report.converged ? "Converged." : "NOT CONVERGED: " + report.reason);
+    state.log.line("Design numbers" + std::string(report.converged ? "" : " (of the last iterate, not converged)") + ":");
+    for (const DesignNumber &number : numbers)
+      {
+        char line[200];
+        std::snprintf(line, sizeof line, "  %-45s %14.6g %s", number.name.c_str(), number.value, number.unit.c_str());
+        state.log.line(line);
+      }
+    state.log.line(std::string("Caution: ") + caution);
+
+    if (state.rank == 0)
+      {
+        unsigned int newton = 0, picard = 0;
+        for (const IterationRecord &record : report.iterations)
+          (record.kind == "Newton" ? newton : picard) += 1;
+        std::ostringstream json;
+        json << "{\n  \"case\": " << json_string(flow.case_file) << ",\n  \"lentus version\": " << json_string(version)
+             << ",\n  \"converged\": " << (report.converged ? "true" : "false")
+             << ",\n  \"status\": " << json_string(report.converged ? "converged" : "not converged")
+             << ",\n  \"reason\": " << json_string(report.reason)
+             << ",\n  \"formulation\": " << json_string(to_string(flow.formulation))
+             << ",\n  \"viscosity law\": " << json_string(flow.fluid.law_name) << ",\n  \"design numbers\": {";
+        for (std::size_t i = 0; i < numbers.size(); ++i)
+          json << (i ? "," : "") << "\n    " << json_string(numbers[i].name) << ": {\"value\": "
+               << json_number(numbers[i].value) << ", \"unit\": " << json_string(numbers[i].unit) << "}";
+        json << "\n  },\n  \"numerics\": {\n    \"unknowns\": " << state.dof_handler.n_dofs()
+             << ",\n    \"cells\": " << state.triangulation.n_global_active_cells()
+             << ",\n    \"Newton iterations\": " << newton << ",\n    \"Picard iterations\": " << picard
+             << ",\n    \"linear iterations\": " << report.linear_iterations
+             << ",\n    \"linear solver\": " << json_string(report.linear_solver)
+             << ",\n    \"continuation steps\": " << report.continuation_steps.size()
+             << ",\n    \"final residual\": "
+             << json_number(report.iterations.empty() ? 0. : report.iterations.back().residual)
+             << ",\n    \"wall time [s]\": " << json_number(seconds) << ",\n    \"ranks\": " << state.n_ranks
+             << "\n  },\n  \"caution\": " << json_string(caution) << "\n}\n";
+        report::write_file_atomically((partial / "summary.json").string(), json.str());
+        report::write_file_atomically((partial / "case.prm").string(), flow.complete_text);
+        report::write_file_atomically((partial / "log.txt").string(), state.log.text());
+        std::filesystem::remove_all(folder);
+        if (folder.has_parent_path())
+          std::filesystem::create_directories(folder.parent_path());
+        std::filesystem::rename(partial, folder);
+        std::printf("Results in %s\n", folder.c_str());
+      }
+    MPI_Barrier(communicator);
+    if (!report.converged)
+      throw NoConvergence(report.reason + " (last iterate written to " + folder.string() + ", marked not converged)");
+    return 0;
+  }
+} // namespace lentus::flow

@@ -1,0 +1,193 @@
+// Mesh, degrees of freedom, constraints and matrices of a flow solve.
+#include "solver/errors.h"
+#include "solver/flow/flow_state.h"
+
+#include <deal.II/base/function.h>
+#include <deal.II/base/utilities.h>
+#include <deal.II/dofs/dof_renumbering.h>
+#include <deal.II/dofs/dof_tools.h>
+#include <deal.II/fe/fe_q.h>
+#include <deal.II/lac/dynamic_sparsity_pattern.h>
+#include <deal.II/lac/sparsity_tools.h>
+#include <deal.II/numerics/vector_tools.h>
+
+#include <iostream>
+
+namespace lentus::flow
+{
+  using namespace dealii;
+
+  void Log::line(const std::string &text)
+  {
+    record << text << '\n';
+    if (active)
+      std::cout << text << std::endl;
+  }
+
+  FlowState::FlowState(const input::FlowCase &flow_case, MPI_Comm communicator)
+    : flow(flow_case)
+    , comm(communicator)
+    , rank(Utilities::MPI::this_mpi_process(communicator))
+    , n_ranks(Utilities::MPI::n_mpi_processes(communicator))
+    , kind(flow_case.formulation)
+    , n_velocity(n_velocity_components(flow_case.formulation))
+    , triangulation(communicator)
+    , fe(FE_Q<2>(flow_case.velocity_degree), n_velocity_components(flow_case.formulation),
+         FE_Q<2>(flow_case.velocity_degree - 1), 1)
+    , dof_handler(triangulation)
+    , law(flow_case.fluid.law)
+    , log(Utilities::MPI::this_mpi_process(communicator) == 0)
+  {
+    if (flow.inertia || flow.gravity[0] != 0. || flow.gravity[1] != 0.)
+      density = flow.fluid.density;
+  }
+
+  namespace
+  {
+    /// Velocity of the moving walls at a point, in mesh components (+ u_theta with swirl).
+    class WallVelocity : public Function<2>
+    {
+    public:
+      WallVelocity(const input::FlowCase &flow, const unsigned int n_components)
+        : Function<2>(n_components)
+        , velocity{flow.wall_velocity[0], flow.wall_velocity[1]}
+        , omega(flow.rotation_rate)
+        , kind(flow.formulation)
+      {}
+
+      double value(const Point<2> &x, const unsigned int component) const override
+      {
+        if (kind == FormulationKind::planar)
+          {
+            // u = U_wall + Omega e_z x r = U_wall + Omega (-y, x)
+            if (component == 0)
+              return velocity[0] - omega * x[1];
+            if (component == 1)
+              return velocity[1] + omega * x[0];
+            return 0.;
+          }
+        if (component < 2)
+          return velocity[component];
+        if (component == 2 && kind == FormulationKind::swirl)
+          return omega * x[0]; // u_theta = Omega r
+        return 0.;
+      }
+
+    private:
+      double          velocity[2];
+      double          omega;
+      FormulationKind kind;
+    };
+
+    /// Outward normal of the first face with boundary id `id` (rank-local; axis-aligned check).
+    int axis_of_normal(const FlowState &state, const types::boundary_id id, const std::string &role)
+    {
+      int axis = -1;
+      for (const auto &cell : state.triangulation.active_cell_iterators())
+        if (cell->is_locally_owned())
+          for (const auto face_no : cell->face_indices())
+            if (cell->face(face_no)->at_boundary() && cell->face(face_no)->boundary_id() == id)
+              {
+                const Tensor<1, 2> edge = cell->face(face_no)->vertex(1) - cell->face(face_no)->vertex(0);
+                const int          face_axis = std::abs(edge[0]) < 1e-12 * edge.norm() ? 0 :
+                                               std::abs(edge[1]) < 1e-12 * edge.norm() ? 1 : -2;
+                if (face_axis == -2)
+                  throw InputError("boundary role '" + role +
+                                   "': pressure and symmetry conditions need boundaries parallel to a coordinate "
+                                   "axis in this version");
+                axis = face_axis;
+              }
+      return Utilities::MPI::max(axis, state.comm);
+    }
+  } // namespace
+
+  void setup_mesh_and_dofs(FlowState &state)
+  {
+    const input::FlowCase &flow = state.flow;
+    flow.geometry->create_mesh(state.triangulation, flow.refinement);
+    state.dof_handler.distribute_dofs(state.fe);
+    state.owned    = state.dof_handler.locally_owned_dofs();
+    DoFTools::extract_locally_relevant_dofs(state.dof_handler, state.relevant);
+
+    const auto roles = flow.geometry->boundary_roles();
+    for (AffineConstraints<double> *constraints : {&state.nonzero_constraints, &state.zero_constraints})
+      {
+        const bool homogeneous = constraints == &state.zero_constraints;
+        constraints->clear();
+        constraints->reinit(state.relevant);
+        DoFTools::make_hanging_node_constraints(state.dof_handler, *constraints);
+        const unsigned int              n_components = state.n_velocity + 1;
+        const Functions::ZeroFunction<2> zero(n_components);
+        const WallVelocity              wall(flow, n_components);
+        for (const input::BoundaryCondition &bc : flow.conditions)
+          {
+            const types::boundary_id id = roles.at(bc.role);
+            std::vector<bool>        mask(n_components, false);
+            const Function<2>       *values = &zero;
+            switch (bc.type)
+              {
+                case input::BoundaryCondition::Type::no_slip:
+                  std::fill(mask.begin(), mask.begin() + state.n_velocity, true);
+                  break;
+                case input::BoundaryCondition::Type::moving_wall:
+                  std::fill(mask.begin(), mask.begin() + state.n_velocity, true);
+                  values = homogeneous ? static_cast<const Function<2> *>(&zero) : &wall;
+                  break;
+                case input::BoundaryCondition::Type::pressure:
+                  // Fully developed: the in-plane tangential component vanishes.
+                  mask[1 - axis_of_normal(state, id, bc.role)] = true;
+                  break;
+                case input::BoundaryCondition::Type::symmetry:
+                  mask[axis_of_normal(state, id, bc.role)] = true;
+                  break;
+                case input::BoundaryCondition::Type::axis:
+                  mask[0] = true; // u_r
+                  if (state.n_velocity == 3)
+                    mask[2] = true; // u_theta
+                  break;
+                case input::BoundaryCondition::Type::traction_free:
+                  continue;
+              }
+            VectorTools::interpolate_boundary_values(state.dof_handler, id, *values, *constraints,
+                                                     ComponentMask(mask));
+          }
+      }
+
+    // Without a pressure or traction boundary the pressure is fixed only up to a
+    // constant: pin the smallest pressure unknown (reports use the mean-free pressure).
+    bool pressure_boundary = false;
+    for (const input::BoundaryCondition &bc : flow.conditions)
+      pressure_boundary = pressure_boundary || bc.type == input::BoundaryCondition::Type::pressure ||
+                          bc.type == input::BoundaryCondition::Type::traction_free;
+    state.pressure_pinned = !pressure_boundary;
+    if (state.pressure_pinned)
+      {
+        const FEValuesExtractors::Scalar pressure(state.n_velocity);
+        const IndexSet pressure_dofs =
+          DoFTools::extract_dofs(state.dof_handler, state.fe.component_mask(pressure));
+        types::global_dof_index first = pressure_dofs.n_elements() ? *pressure_dofs.begin() : numbers::invalid_dof_index;
+        first = Utilities::MPI::min(first, state.comm);
+        for (AffineConstraints<double> *constraints : {&state.nonzero_constraints, &state.zero_constraints})
+          if (state.relevant.is_element(first) && !constraints->is_constrained(first))
+            constraints->add_line(first);
+      }
+    state.nonzero_constraints.close();
+    state.zero_constraints.close();
+
+    DynamicSparsityPattern pattern(state.relevant);
+    DoFTools::make_sparsity_pattern(state.dof_handler, pattern, state.zero_constraints, false);
+    SparsityTools::distribute_sparsity_pattern(pattern, state.owned, state.comm, state.relevant);
+    state.system_matrix.reinit(state.owned, state.owned, pattern, state.comm);
+    state.pressure_mass.reinit(state.owned, state.owned, pattern, state.comm);
+    state.residual.reinit(state.owned, state.comm);
+    state.solution.reinit(state.owned, state.relevant, state.comm);
+  }
+
+  void initial_solution(FlowState &state)
+  {
+    Vector owned_solution(state.owned, state.comm);
+    owned_solution = 0.;
+    state.nonzero_constraints.distribute(owned_solution);
+    state.solution = owned_solution;
+  }
+} // namespace lentus::flow

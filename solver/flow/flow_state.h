@@ -1,0 +1,108 @@
+// The state of one flow solve, shared by the translation units of solver/flow/.
+// Heavy header: include it only from solver/flow/*.cc.
+#pragma once
+
+#include "rheology/viscosity_law.h"
+#include "solver/input/flow_case.h"
+
+#include <deal.II/base/conditional_ostream.h>
+#include <deal.II/base/index_set.h>
+#include <deal.II/distributed/tria.h>
+#include <deal.II/dofs/dof_handler.h>
+#include <deal.II/fe/fe_system.h>
+#include <deal.II/lac/affine_constraints.h>
+#include <deal.II/lac/petsc_sparse_matrix.h>
+#include <deal.II/lac/petsc_vector.h>
+
+#include <memory>
+#include <sstream>
+#include <string>
+#include <vector>
+
+namespace lentus::flow
+{
+  using Vector = dealii::PETScWrappers::MPI::Vector;
+  using Matrix = dealii::PETScWrappers::MPI::SparseMatrix;
+
+  /// One line per nonlinear iteration.
+  struct IterationRecord
+  {
+    unsigned int iteration;
+    std::string  kind;     ///< "Picard" or "Newton"
+    double       residual; ///< after the step
+    double       step;     ///< line-search step length
+    unsigned int linear_iterations;
+    double       seconds;
+  };
+
+  struct SolveReport
+  {
+    bool                         converged = false;
+    std::string                  reason;
+    std::vector<IterationRecord> iterations;
+    unsigned int                 linear_iterations = 0;
+    std::string                  linear_solver;
+    std::vector<std::string>     continuation_steps;
+  };
+
+  /// Messages go to standard output (rank 0) and into the case's log.
+  class Log
+  {
+  public:
+    explicit Log(bool active_) : active(active_) {}
+    void line(const std::string &text);
+    std::string text() const { return record.str(); }
+
+  private:
+    bool               active;
+    std::ostringstream record;
+  };
+
+  struct FlowState
+  {
+    FlowState(const input::FlowCase &flow_case, MPI_Comm communicator);
+
+    const input::FlowCase                     &flow;
+    MPI_Comm                                   comm;
+    unsigned int                               rank, n_ranks;
+    FormulationKind                            kind;
+    unsigned int                               n_velocity;
+    dealii::parallel::distributed::Triangulation<2> triangulation;
+    dealii::FESystem<2>                        fe;
+    dealii::DoFHandler<2>                      dof_handler;
+    dealii::IndexSet                           owned, relevant;
+    dealii::AffineConstraints<double>          nonzero_constraints, zero_constraints;
+    Matrix                                     system_matrix, pressure_mass;
+    Vector                                     residual;      ///< owned
+    Vector                                     solution;      ///< ghosted
+    std::shared_ptr<const rheology::ViscosityLaw> law;        ///< current (continuation may soften it)
+    double                                     density = 0.;  ///< 0 when neither inertia nor gravity
+    bool                                       pressure_pinned = false;
+    Log                                        log;
+  };
+
+  // flow_setup.cc
+  void setup_mesh_and_dofs(FlowState &state);
+  /// The initial iterate: zero with the Dirichlet values.
+  void initial_solution(FlowState &state);
+
+  // flow_assembly.cc
+  enum class Linearization
+  {
+    none,   ///< residual only
+    picard, ///< eta frozen, Oseen inertia
+    newton  ///< exact Jacobian
+  };
+  /// Assembles the residual R(u) of `evaluation_point` (ghosted) into state.residual as -R, and the
+  /// matrix (and the 1/eta-weighted pressure mass matrix) unless `linearization` is none.
+  /// Returns the l2 norm of R over the unconstrained unknowns.
+  double assemble(FlowState &state, const Vector &evaluation_point, Linearization linearization);
+
+  // flow_linear_solver.cc
+  /// Solves system_matrix * update = residual; returns the iterations (1 for the direct solver).
+  unsigned int solve_linear(FlowState &state, Vector &update, bool direct);
+
+  // flow_newton.cc
+  /// Newton with line search, Picard start and continuation. Leaves the last iterate in state.solution.
+  SolveReport solve_nonlinear(FlowState &state);
+} // namespace lentus::flow

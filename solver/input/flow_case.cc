@@ -1,0 +1,214 @@
+#include "solver/input/flow_case.h"
+
+#include "solver/errors.h"
+
+#include <algorithm>
+#include <cmath>
+#include <filesystem>
+#include <map>
+#include <set>
+
+namespace lentus::input
+{
+  namespace
+  {
+    using rheology::Range;
+
+    struct ConditionKey
+    {
+      const char               *key;
+      BoundaryCondition::Type   type;
+      const char               *documentation;
+    };
+
+    const ConditionKey condition_keys[] = {
+      {"No-slip", BoundaryCondition::Type::no_slip, "Roles where the fluid sticks to a fixed wall: u = 0."},
+      {"Moving wall", BoundaryCondition::Type::moving_wall,
+       "Roles of walls that move: u = Wall velocity + Rotation rate x r (swirl: u_theta = Rotation rate * r)."},
+      {"Pressure", BoundaryCondition::Type::pressure,
+       "Roles of fully developed inlets and outlets at a set pressure (Pressure values): tangential velocity 0, "
+       "normal stress -p."},
+      {"Traction-free", BoundaryCondition::Type::traction_free,
+       "Roles of outflows with zero traction (do-nothing); not exact for developed flow at a die exit."},
+      {"Symmetry", BoundaryCondition::Type::symmetry, "Roles of symmetry planes or slip walls: u . n = 0."},
+      {"Axis", BoundaryCondition::Type::axis, "Roles on the axis r = 0 (axisymmetric): u_r = 0, u_theta = 0."},
+    };
+
+    const std::string conditions = "Boundary conditions/";
+  } // namespace
+
+  void declare_flow_case(CaseSchema &schema)
+  {
+    std::vector<std::string> shape_names;
+    for (const meshes::ShapeInfo &shape : meshes::shapes())
+      {
+        shape_names.push_back(shape.name);
+        for (const rheology::ParameterInfo &parameter : shape.parameters)
+          schema.declare("Geometry/" + shape.name + "/" + parameter.key, "", ValueKind::real(parameter.range),
+                         parameter.symbol + " [" + parameter.unit + "]: " + parameter.meaning + ".");
+      }
+    schema.declare("Geometry/Shape", "", ValueKind::selection(shape_names),
+                   "Which shape; its dimensions are set in the subsection of the same name.");
+    schema.declare("Geometry/Refinement", "3", ValueKind::integer(0, 12),
+                   "Number of uniform refinements of the coarse mesh (each halves the cell size).");
+
+    schema.declare("Flow/Formulation", "planar",
+                   ValueKind::selection({"planar", "axisymmetric", "axisymmetric with swirl"}),
+                   "planar: (x, y) per unit depth; axisymmetric: (r, z) with x = r; with swirl: also u_theta.");
+    schema.declare("Flow/Inertia", "false", ValueKind::boolean(),
+                   "Include the inertia term rho (u . grad) u (needs Rheology/Density).");
+    schema.declare("Flow/Gravity", "0, 0", ValueKind::real_list(Range::any()),
+                   "Body force per unit mass g [m/s^2], two mesh components (x, y) or (r, z); needs Density if not 0.");
+    schema.declare("Flow/Velocity degree", "2", ValueKind::integer(2, 4),
+                   "Polynomial degree of the velocity (Taylor-Hood: pressure one lower).");
+
+    for (const ConditionKey &condition : condition_keys)
+      schema.declare(conditions + condition.key, "", ValueKind::text(),
+                     std::string(condition.documentation) + " Comma-separated role names of the shape.");
+    schema.declare(conditions + "Pressure values", "", ValueKind::real_list(Range::any()),
+                   "p [Pa] for each role listed under Pressure, in the same order.");
+    schema.declare(conditions + "Wall velocity", "0, 0", ValueKind::real_list(Range::any()),
+                   "[m/s] velocity of the moving walls, two mesh components (x, y) or (r, z).");
+    schema.declare(conditions + "Rotation rate", "0", ValueKind::real(Range::any()),
+                   "Omega [rad/s] of the moving walls about the axis (swirl) or the origin (planar).");
+
+    schema.declare("Nonlinear solver/Relative tolerance", "1e-8", ValueKind::real(Range::above(0.)),
+                   "Converged when the residual norm falls below this fraction of the first one [-].");
+    schema.declare("Nonlinear solver/Absolute tolerance", "1e-12", ValueKind::real(Range::at_least(0.)),
+                   "... or below this absolute value (residual in N per radian or per metre depth).");
+    schema.declare("Nonlinear solver/Maximum iterations", "60", ValueKind::integer(1, 10000),
+                   "Newton and Picard iterations per solve.");
+    schema.declare("Nonlinear solver/Picard until", "1e-2", ValueKind::real(Range::above(0.)),
+                   "Picard steps while residual / first residual is above this, then Newton [-].");
+    schema.declare("Nonlinear solver/Maximum Picard steps", "10", ValueKind::integer(0, 10000),
+                   "Picard steps at most before Newton takes over.");
+    schema.declare("Nonlinear solver/Continuation", "true", ValueKind::boolean(),
+                   "When a solve fails, approach the case by continuation (Regularization exponent M, "
+                   "then flow index) from an easier one.");
+    schema.declare("Linear solver/Type", "automatic", ValueKind::selection({"automatic", "direct", "iterative"}),
+                   "direct: sparse LU (MUMPS); iterative: FGMRES with a block-triangular preconditioner "
+                   "(AMG on velocity, 1/eta-weighted pressure mass matrix).");
+    schema.declare("Linear solver/Direct up to", "250000", ValueKind::integer(1, 1000000000),
+                   "automatic chooses the direct solver up to this many unknowns.");
+    schema.declare("Output/Folder", "", ValueKind::text(),
+                   "Folder for the results; default out/<case name> next to the working directory.");
+    schema.declare("Output/Write fields", "true", ValueKind::boolean(), "Write VTU/PVD field files.");
+  }
+
+  FlowCase read_flow_case(const CaseFile &file)
+  {
+    FlowCase flow;
+    flow.case_file = file.file_name();
+    flow.case_name = std::filesystem::path(file.file_name()).stem().string();
+    flow.fluid     = read_fluid(file);
+
+    flow.shape_name = file.get("Geometry/Shape");
+    if (flow.shape_name.empty())
+      {
+        std::string list;
+        for (const meshes::ShapeInfo &shape : meshes::shapes())
+          list += (list.empty() ? "" : ", ") + shape.name;
+        file.fail("Geometry/Shape", "missing", "one of " + list);
+      }
+    const meshes::ShapeInfo &shape = meshes::find_shape(flow.shape_name);
+    const std::string        shape_section = "Geometry/" + shape.name + "/";
+    for (const rheology::ParameterInfo &parameter : shape.parameters)
+      flow.shape_values.push_back(file.get_real(shape_section + parameter.key));
+    try
+      {
+        flow.geometry = shape.create(flow.shape_values);
+      }
+    catch (const rheology::InvalidParameter &error)
+      {
+        file.fail(shape_section + error.key, error.problem, error.allowed);
+      }
+    flow.refinement = static_cast<unsigned int>(file.get_real("Geometry/Refinement"));
+
+    const std::string formulation = file.get("Flow/Formulation");
+    flow.formulation = formulation == "planar"         ? FormulationKind::planar :
+                       formulation == "axisymmetric"   ? FormulationKind::axisymmetric :
+                                                         FormulationKind::swirl;
+    const meshes::Symmetry symmetry = flow.geometry->symmetry();
+    if (symmetry == meshes::Symmetry::planar_only && is_axisymmetric(flow.formulation))
+      file.fail("Flow/Formulation", "shape " + shape.name + " is planar", "planar");
+    if (symmetry == meshes::Symmetry::axisymmetric_only && !is_axisymmetric(flow.formulation))
+      file.fail("Flow/Formulation", "shape " + shape.name + " is axisymmetric",
+                "axisymmetric, or axisymmetric with swirl");
+
+    flow.inertia = file.get("Flow/Inertia") == "true";
+    const auto gravity = split_list(file.get("Flow/Gravity"));
+    if (gravity.size() != 2)
+      file.fail("Flow/Gravity", "needs two components", "two real numbers, e.g. 0, -9.81");
+    flow.gravity[0] = *parse_real(gravity[0]);
+    flow.gravity[1] = *parse_real(gravity[1]);
+    if ((flow.inertia || flow.gravity[0] != 0. || flow.gravity[1] != 0.) && std::isnan(flow.fluid.density))
+      file.fail("Rheology/Density", "missing; inertia and gravity need it", "a density > 0 kg/m^3");
+    flow.velocity_degree = static_cast<unsigned int>(file.get_real("Flow/Velocity degree"));
+
+    // Boundary conditions: every listed role exists, every role gets exactly one condition.
+    std::map<std::string, std::string> assigned; // role -> key that assigned it
+    const auto                         roles = flow.geometry->role_names();
+    std::string                        role_list;
+    for (const std::string &role : roles)
+      role_list += (role_list.empty() ? "" : ", ") + role;
+    std::vector<double> pressures;
+    for (const std::string &value : split_list(file.get(conditions + "Pressure values")))
+      pressures.push_back(*parse_real(value));
+    unsigned int pressure_index = 0;
+    for (const ConditionKey &condition : condition_keys)
+      {
+        const std::string key = conditions + condition.key;
+        for (const std::string &role : split_list(file.get(key)))
+          {
+            if (std::find(roles.begin(), roles.end(), role) == roles.end())
+              file.fail(key, "'" + role + "' is not a boundary role of shape " + shape.name,
+                        "role names among " + role_list);
+            if (assigned.count(role))
+              file.fail(key, "role '" + role + "' already has a condition (" + assigned[role] + ")",
+                        "one condition per role");
+            if (condition.type == BoundaryCondition::Type::axis && !is_axisymmetric(flow.formulation))
+              file.fail(key, "an axis condition needs an axisymmetric formulation", "no Axis roles when planar");
+            assigned[role] = condition.key;
+            BoundaryCondition bc{role, condition.type, 0.};
+            if (condition.type == BoundaryCondition::Type::pressure)
+              {
+                if (pressure_index >= pressures.size())
+                  file.fail(conditions + "Pressure values",
+                            "fewer values than roles under Pressure", "one pressure [Pa] per role, in order");
+                bc.pressure = pressures[pressure_index++];
+              }
+            flow.conditions.push_back(bc);
+          }
+      }
+    if (pressure_index != pressures.size())
+      file.fail(conditions + "Pressure values", "more values than roles under Pressure",
+                "one pressure [Pa] per role, in order");
+    for (const std::string &role : roles)
+      if (!assigned.count(role))
+        file.fail(conditions + "No-slip", "boundary role '" + role + "' of shape " + shape.name + " has no condition",
+                  "every role (" + role_list + ") listed under exactly one of No-slip, Moving wall, Pressure, "
+                  "Traction-free, Symmetry, Axis");
+    const auto wall_velocity = split_list(file.get(conditions + "Wall velocity"));
+    if (wall_velocity.size() != 2)
+      file.fail(conditions + "Wall velocity", "needs two components", "two real numbers [m/s]");
+    flow.wall_velocity[0] = *parse_real(wall_velocity[0]);
+    flow.wall_velocity[1] = *parse_real(wall_velocity[1]);
+    flow.rotation_rate    = file.get_real(conditions + "Rotation rate");
+
+    flow.relative_tolerance = file.get_real("Nonlinear solver/Relative tolerance");
+    flow.absolute_tolerance = file.get_real("Nonlinear solver/Absolute tolerance");
+    flow.max_iterations     = static_cast<unsigned int>(file.get_real("Nonlinear solver/Maximum iterations"));
+    flow.picard_until       = file.get_real("Nonlinear solver/Picard until");
+    flow.max_picard_steps   = static_cast<unsigned int>(file.get_real("Nonlinear solver/Maximum Picard steps"));
+    flow.continuation       = file.get("Nonlinear solver/Continuation") == "true";
+    flow.linear_solver      = file.get("Linear solver/Type");
+    flow.direct_limit       = static_cast<unsigned int>(file.get_real("Linear solver/Direct up to"));
+
+    flow.output_folder = file.get("Output/Folder");
+    if (flow.output_folder.empty())
+      flow.output_folder = (std::filesystem::path("out") / flow.case_name).string();
+    flow.write_fields  = file.get("Output/Write fields") == "true";
+    flow.complete_text = file.complete_text();
+    return flow;
+  }
+} // namespace lentus::input
