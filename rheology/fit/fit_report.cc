@@ -1,0 +1,317 @@
+#include "rheology/fit/fit_report.h"
+
+#include "rheology/law_registry.h"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+#include <sstream>
+
+namespace lentus::rheology::fit
+{
+  const char *const caution =
+    "Fitted parameters are model estimates from the data given: check the fluid's predictions against "
+    "measurements before relying on them; results never replace pressure-relief devices, local codes or review "
+    "by a licensed engineer.";
+
+  namespace
+  {
+    std::string number(const double value, const int digits = 6)
+    {
+      char buffer[40];
+      std::snprintf(buffer, sizeof buffer, "%.*g", digits, value);
+      return buffer;
+    }
+
+    std::string padded(const std::string &text, const std::size_t width)
+    {
+      return text.size() >= width ? text + " " : text + std::string(width - text.size(), ' ');
+    }
+
+    std::string json_string(const std::string &text)
+    {
+      std::string result = "\"";
+      for (const char c : text)
+        switch (c)
+          {
+            case '"': result += "\\\""; break;
+            case '\\': result += "\\\\"; break;
+            case '\n': result += "\\n"; break;
+            case '\t': result += "\\t"; break;
+            default:
+              if (static_cast<unsigned char>(c) < 0x20)
+                {
+                  char buffer[8];
+                  std::snprintf(buffer, sizeof buffer, "\\u%04x", c);
+                  result += buffer;
+                }
+              else
+                result += c;
+          }
+      return result + "\"";
+    }
+
+    std::string json_number(const double value)
+    {
+      if (!std::isfinite(value))
+        return "null";
+      char buffer[40];
+      std::snprintf(buffer, sizeof buffer, "%.10g", value);
+      return buffer;
+    }
+
+    std::string shift_text(const LawFit &fit)
+    {
+      if (fit.shift_name == "none")
+        return "";
+      return " + " + fit.shift_name + " shift (T_ref = " + number(fit.reference_temperature) + " K)";
+    }
+
+    double shear_rate_min(const FlowCurveData &data)
+    {
+      double lowest = HUGE_VAL;
+      for (const Measurement &point : data.points)
+        lowest = std::min(lowest, point.shear_rate);
+      return lowest;
+    }
+
+    double shear_rate_max(const FlowCurveData &data)
+    {
+      double highest = 0.;
+      for (const Measurement &point : data.points)
+        highest = std::max(highest, point.shear_rate);
+      return highest;
+    }
+
+    std::string data_summary(const FlowCurveData &data)
+    {
+      std::ostringstream text;
+      text << data.points.size() << " points, shear rate " << number(shear_rate_min(data), 4) << " .. "
+           << number(shear_rate_max(data), 4) << " 1/s";
+      const auto temperatures = data.temperatures();
+      if (!temperatures.empty())
+        {
+          text << ", temperature";
+          for (const double temperature : temperatures)
+            text << " " << number(temperature) << (temperature == temperatures.back() ? " K" : ",");
+        }
+      return text.str();
+    }
+
+    const char *method =
+      "nonlinear least squares on log shear stress (relative errors), Levenberg-Marquardt (GSL trust region); "
+      "positive parameters fitted as logarithms; standard errors from the Jacobian at the optimum (delta method); "
+      "intervals from Student's t";
+  } // namespace
+
+  std::string text_report(const FlowCurveData &data, const std::vector<LawFit> &fits, const FitOptions &options)
+  {
+    std::ostringstream text;
+    const std::string  level = number(100. * options.confidence) + "%";
+    text << "Rheometer data: " << data.source << ": " << data_summary(data) << "\n"
+         << "Method: " << method << ".\n\n";
+
+    text << "Ranking by AIC (lower is better; Akaike weight = relative support)\n"
+         << "rank  " << padded("law", 36) << padded("params", 7) << padded("RMS [%]", 9) << padded("AIC", 10)
+         << padded("BIC", 10) << padded("dAIC", 9) << "weight\n";
+    int rank = 0;
+    for (const LawFit &fit : fits)
+      {
+        if (!fit.fitted)
+          {
+            text << "  -   " << padded(fit.law, 36) << "not fitted: " << fit.failure << "\n";
+            continue;
+          }
+        ++rank;
+        text << padded(std::to_string(rank), 6) << padded(fit.law + (fit.shift_name != "none" ? " + " + fit.shift_name : ""), 36)
+             << padded(std::to_string(fit.n_parameters), 7)
+             << padded(number(100. * (std::exp(fit.rms_log) - 1.), 3), 9) << padded(number(fit.aic, 5), 10)
+             << padded(number(fit.bic, 5), 10) << padded(number(fit.aic - fits.front().aic, 3), 9)
+             << number(fit.akaike_weight, 3) << "\n";
+      }
+
+    rank = 0;
+    for (const LawFit &fit : fits)
+      {
+        if (!fit.fitted)
+          continue;
+        ++rank;
+        text << "\n" << rank << ". " << fit.law << shift_text(fit) << ": RMS " << number(100. * (std::exp(fit.rms_log) - 1.), 3)
+             << "% of stress, " << fit.iterations << " iterations\n";
+        text << "   " << padded("parameter", 26) << padded("value", 13) << padded("std. error", 13) << level
+             << " interval\n";
+        for (const Estimate &estimate : fit.estimates)
+          text << "   " << padded(estimate.key + " " + estimate.symbol, 26) << padded(number(estimate.value), 13)
+               << padded(number(estimate.standard_error, 3), 13) << "[" << number(estimate.lower) << ", "
+               << number(estimate.upper) << "] " << estimate.unit << "\n";
+        if (!fit.shift_factors.empty())
+          {
+            text << "   shift factors fitted freely per temperature (a_T = 1 at T_ref):\n";
+            for (const Estimate &factor : fit.shift_factors)
+              text << "     " << padded(factor.key, 30) << padded(number(factor.value), 13) << "[" << number(factor.lower)
+                   << ", " << number(factor.upper) << "]\n";
+          }
+        for (const std::string &warning : fit.warnings)
+          text << "   warning: " << warning << "\n";
+      }
+
+    text << "\nFitted fluid (rank 1), ready to paste into a case file:\n\n"
+         << case_section(fits.front(), data.source) << "\nCaution: " << caution << "\n";
+    return text.str();
+  }
+
+  std::string case_section(const LawFit &fit, const std::string &source)
+  {
+    std::ostringstream text;
+    text << "# Fitted by `lentus fit` to " << source << ": " << fit.law << shift_text(fit) << ", RMS "
+         << number(100. * (std::exp(fit.rms_log) - 1.), 3) << "% of stress.\n"
+         << "# Model estimate: check it against measurements before relying on it.\n"
+         << "subsection Rheology\n"
+         << "  set Viscosity law     = " << fit.law << "\n"
+         << "  set Temperature shift = " << fit.shift_name << "\n";
+
+    auto write_values = [&](const std::string &section, const ParameterValues &values,
+                            const std::vector<std::string> &order) {
+      std::size_t width = 0;
+      for (const std::string &key : order)
+        if (values.count(key))
+          width = std::max(width, key.size());
+      text << "  subsection " << section << "\n";
+      for (const std::string &key : order)
+        {
+          const auto found = values.find(key);
+          if (found == values.end() || !std::isfinite(found->second))
+            continue;
+          std::string comment;
+          for (const Estimate &estimate : fit.estimates)
+            if (estimate.path == "Rheology/" + section + "/" + key)
+              comment = estimate.unit + ", 95% interval [" + number(estimate.lower, 4) + ", " +
+                        number(estimate.upper, 4) + "]";
+          if (comment.empty())
+            comment = key == "Reference temperature" ? "K" : "held fixed, see the notes below";
+          text << "    set " << padded(key, width + 1) << "= " << number(found->second) << "   # " << comment << "\n";
+        }
+      text << "  end\n";
+    };
+
+    std::vector<std::string> law_keys;
+    for (const ParameterInfo &parameter : registry().find(fit.law).parameters)
+      law_keys.push_back(parameter.key);
+    write_values(fit.law, fit.law_values, law_keys);
+    if (fit.shift_name == "Arrhenius")
+      write_values("Arrhenius", fit.shift_values, {"Activation energy", "Reference temperature"});
+    if (fit.shift_name == "WLF")
+      write_values("WLF", fit.shift_values, {"C1", "C2", "Reference temperature"});
+    text << "end\n";
+    for (const std::string &note : fit.fixed_notes)
+      text << "# Note: " << note << "\n";
+    return text.str();
+  }
+
+  std::string json_report(const FlowCurveData &data, const std::vector<LawFit> &fits, const FitOptions &options)
+  {
+    std::ostringstream json;
+    json << "{\n  \"data\": {\"file\": " << json_string(data.source) << ", \"points\": " << data.points.size()
+         << ", \"shear rate range [1/s]\": [" << json_number(shear_rate_min(data)) << ", "
+         << json_number(shear_rate_max(data)) << "], \"temperatures [K]\": [";
+    const auto temperatures = data.temperatures();
+    for (std::size_t i = 0; i < temperatures.size(); ++i)
+      json << (i ? ", " : "") << json_number(temperatures[i]);
+    json << "]},\n  \"method\": " << json_string(method) << ",\n  \"confidence\": " << json_number(options.confidence)
+         << ",\n  \"ranking\": \"AIC, lower is better\",\n  \"caution\": " << json_string(caution) << ",\n  \"laws\": [";
+
+    auto estimate_json = [](const Estimate &estimate) {
+      std::ostringstream item;
+      item << "{\"key\": " << json_string(estimate.key) << ", \"path\": " << json_string(estimate.path)
+           << ", \"symbol\": " << json_string(estimate.symbol) << ", \"unit\": " << json_string(estimate.unit)
+           << ", \"value\": " << json_number(estimate.value)
+           << ", \"standard error\": " << json_number(estimate.standard_error)
+           << ", \"lower\": " << json_number(estimate.lower) << ", \"upper\": " << json_number(estimate.upper) << "}";
+      return item.str();
+    };
+
+    int rank = 0;
+    for (std::size_t f = 0; f < fits.size(); ++f)
+      {
+        const LawFit &fit = fits[f];
+        json << (f ? "," : "") << "\n    {\"law\": " << json_string(fit.law) << ", \"fitted\": "
+             << (fit.fitted ? "true" : "false");
+        if (!fit.fitted)
+          {
+            json << ", \"failure\": " << json_string(fit.failure) << "}";
+            continue;
+          }
+        json << ", \"rank\": " << ++rank << ", \"temperature shift\": " << json_string(fit.shift_name)
+             << ", \"reference temperature [K]\": " << json_number(fit.reference_temperature)
+             << ", \"points\": " << fit.n_points << ", \"parameters fitted\": " << fit.n_parameters
+             << ", \"rms log residual\": " << json_number(fit.rms_log) << ", \"aic\": " << json_number(fit.aic)
+             << ", \"bic\": " << json_number(fit.bic) << ", \"akaike weight\": " << json_number(fit.akaike_weight)
+             << ", \"iterations\": " << fit.iterations << ",\n     \"parameters\": [";
+        for (std::size_t i = 0; i < fit.estimates.size(); ++i)
+          json << (i ? ",\n       " : "\n       ") << estimate_json(fit.estimates[i]);
+        json << "],\n     \"correlation\": [";
+        const std::size_t p = fit.estimates.size();
+        for (std::size_t i = 0; i < p; ++i)
+          {
+            json << (i ? ", " : "") << "[";
+            for (std::size_t j = 0; j < p; ++j)
+              json << (j ? ", " : "") << json_number(fit.correlation[i * p + j]);
+            json << "]";
+          }
+        json << "],\n     \"case values\": {";
+        bool first = true;
+        for (const auto &[key, value] : fit.law_values)
+          {
+            json << (first ? "" : ", ") << json_string(key) << ": " << json_number(value);
+            first = false;
+          }
+        for (const auto &[key, value] : fit.shift_values)
+          json << ", " << json_string(fit.shift_name + "/" + key) << ": " << json_number(value);
+        json << "},\n     \"shift factors\": [";
+        for (std::size_t i = 0; i < fit.shift_factors.size(); ++i)
+          json << (i ? ", " : "") << estimate_json(fit.shift_factors[i]);
+        json << "],\n     \"warnings\": [";
+        for (std::size_t i = 0; i < fit.warnings.size(); ++i)
+          json << (i ? ", " : "") << json_string(fit.warnings[i]);
+        json << "],\n     \"notes\": [";
+        for (std::size_t i = 0; i < fit.fixed_notes.size(); ++i)
+          json << (i ? ", " : "") << json_string(fit.fixed_notes[i]);
+        json << "]}";
+      }
+    json << "\n  ]\n}\n";
+    return json.str();
+  }
+
+  std::string plot_table(const FlowCurveData &data, const std::vector<LawFit> &fits, const std::size_t curves)
+  {
+    std::ostringstream csv;
+    csv << "kind,law,temperature [K],shear rate [1/s],shear stress [Pa],viscosity [Pa s],residual [%]\n";
+    const LawFit &best = fits.front();
+    for (const Measurement &point : data.points)
+      {
+        const double model = best.stress(point.shear_rate, point.temperature);
+        csv << "data," << best.law << "," << number(point.temperature, 10) << "," << number(point.shear_rate, 10) << ","
+            << number(point.shear_stress, 10) << "," << number(point.shear_stress / point.shear_rate, 10) << ","
+            << number(100. * (point.shear_stress / model - 1.), 6) << "\n";
+      }
+    const double low = 0.5 * shear_rate_min(data), high = 2. * shear_rate_max(data);
+    std::vector<double> temperatures = data.temperatures();
+    if (temperatures.empty())
+      temperatures.push_back(std::nan(""));
+    std::size_t drawn = 0;
+    for (const LawFit &fit : fits)
+      {
+        if (!fit.fitted || drawn++ == curves)
+          break;
+        for (const double temperature : temperatures)
+          for (int i = 0; i <= 80; ++i)
+            {
+              const double rate   = low * std::pow(high / low, i / 80.);
+              const double stress = fit.stress(rate, temperature);
+              csv << "curve," << fit.law << "," << number(temperature, 10) << "," << number(rate, 10) << ","
+                  << number(stress, 10) << "," << number(stress / rate, 10) << ",\n";
+            }
+      }
+    return csv.str();
+  }
+} // namespace lentus::rheology::fit
