@@ -3,6 +3,7 @@
 #include "solver/cli/commands.h"
 #include "solver/errors.h"
 #include "solver/input/case_schema.h"
+#include "solver/input/flow_case.h"
 #include "solver/input/fluid_section.h"
 
 #include <cmath>
@@ -33,6 +34,15 @@ namespace lentus::cli
       std::cout << " at T = " << rheology::format_value(fluid.temperature)
                 << " K (a_T = " << rheology::format_value(fluid.shift_factor) << ")";
     std::cout << '\n';
+    if (file.is_set("Geometry/Shape"))
+      {
+        const input::FlowCase flow = input::read_flow_case(file);
+        std::cout << "  geometry: " << flow.shape_name << ", refinement " << flow.refinement << "; formulation "
+                  << to_string(flow.formulation) << "; boundary roles:";
+        for (const input::BoundaryCondition &bc : flow.conditions)
+          std::cout << ' ' << bc.role << ';';
+        std::cout << "\n  results would go to " << flow.output_folder << '\n';
+      }
     return 0;
   }
 } // namespace lentus::cli

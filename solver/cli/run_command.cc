@@ -34,6 +34,9 @@ namespace lentus::cli
     dealii::Utilities::MPI::MPI_InitFinalize mpi(argc, mutable_argv, 1);
     const input::CaseFile  file = input::CaseFile::read(arguments.positional[0], input::case_schema(), sets);
     const input::FlowCase  flow = input::read_flow_case(file);
-    return flow::run_flow_case(flow, MPI_COMM_WORLD);
+    const flow::RunResult result = flow::run_flow_case(flow, MPI_COMM_WORLD);
+    if (!result.converged)
+      throw NoConvergence(result.reason);
+    return 0;
   }
 } // namespace lentus::cli

@@ -67,7 +67,16 @@ namespace lentus::flow
           if (linearization == Linearization::picard)
             ++picard;
           assemble(state, state.solution, linearization);
-          const unsigned int linear_iterations = solve_linear(state, update, direct);
+          unsigned int linear_iterations = 0;
+          try
+            {
+              linear_iterations = solve_linear(state, update, direct);
+            }
+          catch (const NoConvergence &error)
+            {
+              why = error.what();
+              return false;
+            }
           report.linear_iterations += linear_iterations;
 
           // Backtracking: accept the first step length that lowers the residual norm enough.

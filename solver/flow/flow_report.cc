@@ -108,7 +108,7 @@ namespace lentus::flow
         owned = state.solution;
         for (const auto index : pressure_dofs & state.owned)
           owned[index] -= mean;
-        owned.compress(VectorOperation::insert);
+        owned.compress(VectorOperation::add);
         state.solution = owned;
       }
 

@@ -1,6 +1,7 @@
 // Design numbers of a solved flow, with units.
 #pragma once
 
+#include "solver/flow/flow_run.h"
 #include "solver/flow/flow_state.h"
 
 #include <string>
@@ -8,13 +9,6 @@
 
 namespace lentus::flow
 {
-  struct DesignNumber
-  {
-    std::string name;
-    double      value;
-    std::string unit;
-  };
-
   /// Makes the pressure mean-free when it was pinned; returns the design numbers.
   std::vector<DesignNumber> design_numbers(FlowState &state);
 

@@ -13,6 +13,7 @@
 #include <deal.II/base/timer.h>
 
 #include <cstdio>
+#include <stdexcept>
 #include <filesystem>
 #include <sstream>
 
@@ -42,7 +43,15 @@ namespace lentus::flow
       "devices, local pressure-equipment and machinery codes, or review by a licensed engineer.";
   } // namespace
 
-  int run_flow_case(const input::FlowCase &flow, MPI_Comm communicator)
+  double RunResult::number(const std::string &name) const
+  {
+    for (const DesignNumber &entry : numbers)
+      if (entry.name == name)
+        return entry.value;
+    throw std::out_of_range("no design number '" + name + "'");
+  }
+
+  RunResult run_flow_case(const input::FlowCase &flow, MPI_Comm communicator)
   {
     dealii::Timer timer;
     FlowState     state(flow, communicator);
@@ -126,8 +135,14 @@ namespace lentus::flow
         std::printf("Results in %s\n", folder.c_str());
       }
     MPI_Barrier(communicator);
-    if (!report.converged)
-      throw NoConvergence(report.reason + " (last iterate written to " + folder.string() + ", marked not converged)");
-    return 0;
+    RunResult result;
+    result.converged = report.converged;
+    result.reason    = report.converged ? "" :
+                                          report.reason + " (last iterate written to " + folder.string() +
+                                          ", marked not converged)";
+    result.numbers   = numbers;
+    for (const IterationRecord &record : report.iterations)
+      result.newton_iterations += record.kind == "Newton";
+    return result;
   }
 } // namespace lentus::flow

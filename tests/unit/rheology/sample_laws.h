@@ -19,6 +19,12 @@ namespace lentus::rheology::testing
     ParameterValues values;
   };
 
+  /// GoogleTest prints the label, not the bytes.
+  inline void PrintTo(const SampleLaw &sample, std::ostream *stream)
+  {
+    *stream << sample.label;
+  }
+
   inline std::vector<SampleLaw> sample_laws()
   {
     return {
