@@ -141,7 +141,7 @@ namespace lentus::rheology::fit
         text << "   " << padded("parameter", 26) << padded("value", 13) << padded("std. error", 13) << level
              << " interval\n";
         for (const Estimate &estimate : fit.estimates)
-          text << "   " << padded(estimate.key + " " + estimate.symbol, 26) << padded(number(estimate.value), 13)
+          text << "   " << padded(estimate.key + (estimate.symbol != estimate.key ? " " + estimate.symbol : ""), 26) << padded(number(estimate.value), 13)
                << padded(number(estimate.standard_error, 3), 13) << "[" << number(estimate.lower) << ", "
                << number(estimate.upper) << "] " << estimate.unit << "\n";
         if (!fit.shift_factors.empty())
@@ -203,6 +203,12 @@ namespace lentus::rheology::fit
     if (fit.shift_name == "WLF")
       write_values("WLF", fit.shift_values, {"C1", "C2", "Reference temperature"});
     text << "end\n";
+    if (fit.shift_name != "none")
+      text << "# A temperature shift needs the temperature of the case; T_ref here, so that this file\n"
+           << "# checks on its own. When pasting the Rheology section, keep the case's own operating point.\n"
+           << "subsection Operating point\n"
+           << "  set Temperature = " << number(fit.reference_temperature) << "   # K\n"
+           << "end\n";
     for (const std::string &note : fit.fixed_notes)
       text << "# Note: " << note << "\n";
     return text.str();

@@ -328,7 +328,8 @@ namespace lentus::rheology::fit
               if (const Estimate *lambda = find_estimate(fit, "Time constant"))
                 advice = "; measure down to about " + short_number(0.1 / lambda->value) + " 1/s";
               fit.warnings.push_back("no low-shear plateau in the data: at the lowest shear rate (" +
-                                     short_number(lowest) + " 1/s at T_ref) the fitted viscosity is " +
+                                     short_number(lowest) + " 1/s" +
+                                     (fit.shift_name != "none" ? " at T_ref" : "") + ") the fitted viscosity is " +
                                      format_percent(ratio) +
                                      " of the Zero-shear viscosity, which is therefore an extrapolation" + advice);
             }
@@ -714,6 +715,9 @@ namespace lentus::rheology::fit
         return fit;
       }
     describe(fit, model, *recipe, solution, all_points, options);
+    if (temperatures.size() > 1 && options.shift == ShiftModel::none)
+      fit.warnings.push_back("the data hold " + std::to_string(temperatures.size()) +
+                             " temperatures but no shift was fitted (--shift none): one curve through all of them");
     return fit;
   }
 
