@@ -50,7 +50,7 @@ def main(argv):
         3, 1, figsize=(6.4, 9.0), dpi=110, sharex=True, gridspec_kw={"height_ratios": [3, 3, 1.6]})
     for index, temperature in enumerate(temperatures):
         colour = COLOURS[index % len(COLOURS)]
-        label = "" if temperature is None else " %.1f K" % temperature
+        label = "" if temperature is None else " %.2f K" % temperature
         points = [p for p in data if p[1] == temperature]
         stress_axis.loglog([p[2] for p in points], [p[3] for p in points], "o", color=colour, mfc="none",
                            label="data" + label)
