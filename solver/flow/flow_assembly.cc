@@ -26,7 +26,31 @@ namespace lentus::flow
 {
   using namespace dealii;
 
+  namespace
+  {
+    double assemble_into(FlowState &state,
+                         const Vector &evaluation_point,
+                         const Linearization linearization,
+                         Vector *reactions);
+  }
+
   double assemble(FlowState &state, const Vector &evaluation_point, const Linearization linearization)
+  {
+    return assemble_into(state, evaluation_point, linearization, nullptr);
+  }
+
+  void assemble_reactions(FlowState &state, const Vector &evaluation_point, Vector &reactions)
+  {
+    reactions.reinit(state.owned, state.comm);
+    assemble_into(state, evaluation_point, Linearization::none, &reactions);
+  }
+
+  namespace
+  {
+  double assemble_into(FlowState &state,
+                       const Vector &evaluation_point,
+                       const Linearization linearization,
+                       Vector *reactions)
   {
     const bool             with_matrix = linearization != Linearization::none;
     const bool             newton      = linearization == Linearization::newton;
@@ -61,6 +85,7 @@ namespace lentus::flow
     gravity[0] = state.flow.gravity[0];
     gravity[2] = state.flow.gravity[1];
 
+    const AffineConstraints<double> no_constraints;
     if (with_matrix)
       {
         state.system_matrix = 0.;
@@ -165,6 +190,11 @@ namespace lentus::flow
                 }
             }
 
+        if (reactions)
+          {
+            no_constraints.distribute_local_to_global(cell_residual, dof_indices, *reactions);
+            continue;
+          }
         // The system is J d = -R.
         cell_residual *= -1.;
         if (with_matrix)
@@ -182,7 +212,13 @@ namespace lentus::flow
         state.system_matrix.compress(VectorOperation::add);
         state.pressure_mass.compress(VectorOperation::add);
       }
+    if (reactions)
+      {
+        reactions->compress(VectorOperation::add);
+        return reactions->l2_norm();
+      }
     state.residual.compress(VectorOperation::add);
     return state.residual.l2_norm();
   }
+  } // namespace
 } // namespace lentus::flow

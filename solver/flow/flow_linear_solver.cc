@@ -43,6 +43,8 @@ namespace lentus::flow
     KSP ksp;
     PC  pc;
     check(KSPCreate(state.comm, &ksp), "KSPCreate");
+    // The prefix must precede the field split, whose sub-solvers inherit it.
+    check(KSPSetOptionsPrefix(ksp, "lentus_"), "KSPSetOptionsPrefix");
     check(KSPSetOperators(ksp, state.system_matrix.petsc_matrix(), state.system_matrix.petsc_matrix()),
           "KSPSetOperators");
     check(KSPGetPC(ksp, &pc), "KSPGetPC");
@@ -78,7 +80,6 @@ namespace lentus::flow
         check(PCFieldSplitSetSchurFactType(pc, PC_FIELDSPLIT_SCHUR_FACT_UPPER), "PCFieldSplitSetSchurFactType");
         check(PCFieldSplitSetSchurPre(pc, PC_FIELDSPLIT_SCHUR_PRE_USER, schur_preconditioner),
               "PCFieldSplitSetSchurPre");
-        check(KSPSetOptionsPrefix(ksp, "lentus_"), "KSPSetOptionsPrefix");
         check(PetscOptionsSetValue(nullptr, "-lentus_fieldsplit_u_ksp_type", "preonly"), "options");
         check(PetscOptionsSetValue(nullptr, "-lentus_fieldsplit_u_pc_type", "hypre"), "options");
         check(PetscOptionsSetValue(nullptr, "-lentus_fieldsplit_u_pc_hypre_type", "boomeramg"), "options");

@@ -4,6 +4,7 @@
 #include <deal.II/base/quadrature_lib.h>
 #include <deal.II/dofs/dof_tools.h>
 #include <deal.II/fe/fe_values.h>
+#include <deal.II/fe/mapping_q1.h>
 #include <deal.II/numerics/data_out.h>
 #include <deal.II/numerics/data_postprocessor.h>
 
@@ -144,11 +145,11 @@ namespace lentus::flow
     Utilities::MPI::sum(ArrayView<const double>(sums, 5), state.comm, ArrayView<double>(sums, 5));
     max_speed = Utilities::MPI::max(max_speed, state.comm);
 
-    // Boundary integrals per role: flux, weighted pressure, length, torque, power.
+    // Boundary integrals per role: flux, weighted pressure, weighted length.
     const auto                         roles = state.flow.geometry->boundary_roles();
-    std::map<types::boundary_id, std::array<double, 5>> role_sums;
+    std::map<types::boundary_id, std::array<double, 3>> role_sums;
     for (const auto &[name, id] : roles)
-      role_sums[id] = {0., 0., 0., 0., 0.};
+      role_sums[id] = std::array<double, 3>{};
     for (const auto &cell : state.dof_handler.active_cell_iterators())
       if (cell->is_locally_owned())
         for (const auto face_no : cell->face_indices())
@@ -163,41 +164,76 @@ namespace lentus::flow
                   const Point<2> x(is_axisymmetric(state.kind) ? std::max(face_values.quadrature_point(q)[0], 1e-300) :
                                                                  face_values.quadrature_point(q)[0],
                                    face_values.quadrature_point(q)[1]);
-                  const double       w = volume_weight(state.kind, x) * face_values.JxW(q);
-                  const Kinematics   u = kinematics(state.kind, x, &values[q][0], gradients[q].data());
-                  const Tensor<2, 3> D = strain_rate(u.L);
-                  const double       gamma_dot = std::sqrt(2. * contract(D, D));
-                  const double       eta       = state.law->evaluate(gamma_dot).value;
-                  const double       p         = values[q][pressure_component];
-                  Tensor<1, 3>       n;
-                  n[0]                         = face_values.normal_vector(q)[0];
-                  n[2]                         = face_values.normal_vector(q)[1];
-                  Tensor<2, 3> sigma           = 2. * eta * D;
-                  for (unsigned int d = 0; d < 3; ++d)
-                    sigma[d][d] -= p;
-                  const Tensor<1, 3> traction = sigma * n; // exerted on the fluid by the boundary
+                  const double     w = volume_weight(state.kind, x) * face_values.JxW(q);
+                  const Kinematics u = kinematics(state.kind, x, &values[q][0], gradients[q].data());
+                  const double     p = values[q][pressure_component];
+                  Tensor<1, 3>     n;
+                  n[0] = face_values.normal_vector(q)[0];
+                  n[2] = face_values.normal_vector(q)[1];
                   sum[0] += u.U * n * w;
                   sum[1] += p * w;
                   sum[2] += w;
-                  // Torque about the axis (swirl: r * t_theta) or about the origin (planar: x t_y - y t_x).
-                  sum[3] += (state.kind == FormulationKind::planar ? x[0] * traction[2] - x[1] * traction[0] :
-                                                                      x[0] * traction[1]) *
-                            w;
-                  sum[4] += traction * u.U * w;
                 }
             }
     for (auto &[id, sum] : role_sums)
-      Utilities::MPI::sum(ArrayView<const double>(sum.data(), 5), state.comm, ArrayView<double>(sum.data(), 5));
+      Utilities::MPI::sum(ArrayView<const double>(sum.data(), 3), state.comm, ArrayView<double>(sum.data(), 3));
+
+    // Reactions: torque and power of each role from the unconstrained residual (consistent with the
+    // discrete equations). Each boundary unknown belongs to the first role that constrains it.
+    Vector reactions;
+    assemble_reactions(state, state.solution, reactions);
+    std::map<types::global_dof_index, Point<2>> support_points;
+    DoFTools::map_dofs_to_support_points(MappingQ1<2>(), state.dof_handler, support_points);
+    std::vector<IndexSet> component_dofs;
+    for (unsigned int c = 0; c < state.n_velocity; ++c)
+      {
+        ComponentMask mask(state.n_velocity + 1, false);
+        mask.set(c, true);
+        component_dofs.push_back(DoFTools::extract_dofs(state.dof_handler, mask));
+      }
+    ComponentMask velocity_mask(state.n_velocity + 1, true);
+    velocity_mask.set(state.n_velocity, false);
+    IndexSet                       claimed(state.dof_handler.n_dofs());
+    std::map<std::string, double>  role_torque, role_power;
+    for (const input::BoundaryCondition &bc : state.flow.conditions)
+      {
+        const IndexSet on_role =
+          DoFTools::extract_boundary_dofs(state.dof_handler, velocity_mask, {roles.at(bc.role)}) & state.owned;
+        double torque = 0., power = 0.;
+        for (const auto index : on_role)
+          {
+            if (claimed.is_element(index))
+              continue;
+            claimed.add_index(index);
+            const double    reaction = reactions[index];
+            const Point<2> &x        = support_points.at(index);
+            power += reaction * state.solution[index];
+            // Torque about the axis (swirl: r R_theta) or the origin (planar: x R_y - y R_x).
+            if (state.kind == FormulationKind::planar)
+              torque += component_dofs[0].is_element(index) ? -x[1] * reaction : x[0] * reaction;
+            else if (state.kind == FormulationKind::swirl && component_dofs[2].is_element(index))
+              torque += x[0] * reaction;
+          }
+        role_torque[bc.role] = factor * Utilities::MPI::sum(torque, state.comm);
+        role_power[bc.role]  = factor * Utilities::MPI::sum(power, state.comm);
+      }
 
     std::vector<DesignNumber> numbers;
     double                    power_in = 0.;
-    for (const std::string &role : state.flow.geometry->role_names())
+    for (const input::BoundaryCondition &bc : state.flow.conditions)
       {
-        const auto &sum = role_sums.at(roles.at(role));
-        numbers.push_back({"flow rate out through " + role, factor * sum[0], flow_unit});
-        numbers.push_back({"mean pressure on " + role, sum[2] > 0. ? sum[1] / sum[2] : 0., "Pa"});
-        numbers.push_back({"torque on the fluid from " + role, factor * sum[3], "N m" + per});
-        power_in += factor * sum[4];
+        const auto  &sum = role_sums.at(roles.at(bc.role));
+        const double flow_rate = factor * sum[0];
+        numbers.push_back({"flow rate out through " + bc.role, flow_rate, flow_unit});
+        numbers.push_back({"mean pressure on " + bc.role, sum[2] > 0. ? sum[1] / sum[2] : 0., "Pa"});
+        const bool wall = bc.type == input::BoundaryCondition::Type::no_slip ||
+                          bc.type == input::BoundaryCondition::Type::moving_wall;
+        if (wall && state.kind != FormulationKind::axisymmetric)
+          numbers.push_back({"torque on the fluid from " + bc.role, role_torque[bc.role], "N m" + per});
+        // Power put in: the reactions' work on Dirichlet roles; -p Q on roles at a set pressure.
+        power_in += role_power[bc.role];
+        if (bc.type == input::BoundaryCondition::Type::pressure)
+          power_in -= bc.pressure * flow_rate;
       }
     if (roles.count("inlet") && roles.count("outlet"))
       {

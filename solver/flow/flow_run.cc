@@ -53,8 +53,22 @@ namespace lentus::flow
 
   RunResult run_flow_case(const input::FlowCase &flow, MPI_Comm communicator)
   {
-    dealii::Timer timer;
-    FlowState     state(flow, communicator);
+    return FlowRun(flow, communicator).result();
+  }
+
+  FlowRun::~FlowRun() = default;
+
+  FlowRun::FlowRun(const input::FlowCase &flow, MPI_Comm communicator)
+    : state(std::make_unique<FlowState>(flow, communicator))
+  {
+    run_result = solve_and_report(*state);
+  }
+
+  RunResult solve_and_report(FlowState &state)
+  {
+    const input::FlowCase &flow         = state.flow;
+    MPI_Comm               communicator = state.comm;
+    dealii::Timer          timer;
     state.log.line("lentus " + std::string(version) + ": case " + flow.case_file + " on " +
                    std::to_string(state.n_ranks) + " rank(s)");
     state.log.line("Fluid: " + flow.fluid.law_name + "; formulation: " + to_string(flow.formulation) +

@@ -3,7 +3,13 @@
 
 #include "solver/input/flow_case.h"
 
+#include <deal.II/base/point.h>
+#include <deal.II/base/tensor.h>
+
 #include <mpi.h>
+
+#include <functional>
+#include <memory>
 
 #include <string>
 #include <vector>
@@ -31,4 +37,32 @@ namespace lentus::flow
   /// Runs the case on `communicator` and writes its folder (also when not
   /// converged: the last iterate, marked so in summary.json).
   RunResult run_flow_case(const input::FlowCase &flow_case, MPI_Comm communicator);
+
+  struct FlowState;
+
+  /// A solved case kept in memory so that its fields can be probed.
+  class FlowRun
+  {
+  public:
+    /// Solves `flow_case` and writes its folder, as run_flow_case does.
+    FlowRun(const input::FlowCase &flow_case, MPI_Comm communicator);
+    ~FlowRun();
+
+    const RunResult &result() const { return run_result; }
+
+    /// Velocity (mesh components, then u_theta with swirl) and pressure at x.
+    /// Collective: every rank calls it with the same point. Throws if x is outside the mesh.
+    std::vector<double> values_at(const dealii::Point<2> &x) const;
+
+    /// L2 norm of u_h - u over the flow domain, with the volume weight (1 or r; no 2 pi),
+    /// for an exact velocity given in mesh components. Collective.
+    double velocity_error(const std::function<dealii::Tensor<1, 2>(const dealii::Point<2> &)> &exact) const;
+
+  private:
+    std::unique_ptr<FlowState> state;
+    RunResult                  run_result;
+  };
+
+  /// Solves, computes the design numbers and writes the folder.
+  RunResult solve_and_report(FlowState &state);
 } // namespace lentus::flow

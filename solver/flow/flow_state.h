@@ -98,6 +98,12 @@ namespace lentus::flow
   /// Returns the l2 norm of R over the unconstrained unknowns.
   double assemble(FlowState &state, const Vector &evaluation_point, Linearization linearization);
 
+  /// The residual R(u) of `evaluation_point` without any constraint applied
+  /// (owned vector): on Dirichlet boundaries R_i is the work of the boundary
+  /// traction on shape function i, which gives consistent reaction forces,
+  /// torques and powers (more accurate than integrating stresses over the surface).
+  void assemble_reactions(FlowState &state, const Vector &evaluation_point, Vector &reactions);
+
   // flow_linear_solver.cc
   /// Solves system_matrix * update = residual; returns the iterations (1 for the direct solver).
   unsigned int solve_linear(FlowState &state, Vector &update, bool direct);

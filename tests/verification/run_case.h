@@ -7,14 +7,24 @@
 #include "solver/input/flow_case.h"
 
 #include <string>
+#include <vector>
 
 namespace lentus::testing
 {
   /// Solves `text` (a case file) with its output in build/tests/verification/out/<name>.
-  inline flow::RunResult run_case(const std::string &name, const std::string &text)
+  inline input::FlowCase flow_case(const std::string &name,
+                                   const std::string &text,
+                                   std::vector<std::string> overrides = {})
   {
-    const input::CaseFile file = input::CaseFile::parse(text, name + ".prm", input::case_schema(),
-                                                        {"Output/Folder=verification_out/" + name});
-    return flow::run_flow_case(input::read_flow_case(file), MPI_COMM_WORLD);
+    overrides.push_back("Output/Folder=verification_out/" + name);
+    const input::CaseFile file = input::CaseFile::parse(text, name + ".prm", input::case_schema(), overrides);
+    return input::read_flow_case(file);
+  }
+
+  inline flow::RunResult run_case(const std::string &name,
+                                  const std::string &text,
+                                  const std::vector<std::string> &overrides = {})
+  {
+    return flow::run_flow_case(flow_case(name, text, overrides), MPI_COMM_WORLD);
   }
 } // namespace lentus::testing
