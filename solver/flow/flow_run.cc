@@ -15,6 +15,7 @@
 #include <cstdio>
 #include <stdexcept>
 #include <filesystem>
+#include <fstream>
 #include <sstream>
 
 namespace lentus::flow
@@ -69,6 +70,15 @@ namespace lentus::flow
     const input::FlowCase &flow         = state.flow;
     MPI_Comm               communicator = state.comm;
     dealii::Timer          timer;
+
+    // The results folder is replaced when the run ends: refuse a folder that holds anything else.
+    const std::filesystem::path target(flow.output_folder);
+    if (std::filesystem::exists(target) &&
+        (!std::filesystem::is_directory(target) ||
+         (!std::filesystem::is_empty(target) && !std::filesystem::exists(target / "summary.json"))))
+      throw InputError("Output/Folder = " + flow.output_folder +
+                       ": exists and is not a Lentus results folder (no summary.json); it would be replaced; "
+                       "allowed: a new folder, or one written by an earlier run");
     state.log.line("lentus " + std::string(version) + ": case " + flow.case_file + " on " +
                    std::to_string(state.n_ranks) + " rank(s)");
     state.log.line("Fluid: " + flow.fluid.law_name + "; formulation: " + to_string(flow.formulation) +
@@ -91,6 +101,17 @@ namespace lentus::flow
       }
     const std::vector<DesignNumber> numbers = design_numbers(state);
     const double                    seconds = timer.wall_time();
+    // Peak resident memory (VmHWM) of each rank [MiB].
+    double peak_memory = 0.;
+    {
+      std::ifstream status("/proc/self/status");
+      std::string   line;
+      while (std::getline(status, line))
+        if (line.rfind("VmHWM:", 0) == 0)
+          peak_memory = std::stod(line.substr(6)) / 1024.;
+    }
+    const double peak_memory_max = dealii::Utilities::MPI::max(peak_memory, communicator);
+    const double peak_memory_sum = dealii::Utilities::MPI::sum(peak_memory, communicator);
 
     // Everything goes to a partial folder first, renamed when complete.
     const std::filesystem::path folder(flow.output_folder);
@@ -117,8 +138,13 @@ namespace lentus::flow
     if (state.rank == 0)
       {
         unsigned int newton = 0, picard = 0;
+        double       iteration_seconds = 0.;
         for (const IterationRecord &record : report.iterations)
-          (record.kind == "Newton" ? newton : picard) += 1;
+          {
+            (record.kind == "Newton" ? newton : picard) += 1;
+            iteration_seconds += record.seconds;
+          }
+        const double steps = std::max<double>(1., static_cast<double>(report.iterations.size()));
         std::ostringstream json;
         json << "{\n  \"case\": " << json_string(flow.case_file) << ",\n  \"lentus version\": " << json_string(version)
              << ",\n  \"converged\": " << (report.converged ? "true" : "false")
@@ -137,6 +163,10 @@ namespace lentus::flow
              << ",\n    \"continuation steps\": " << report.continuation_steps.size()
              << ",\n    \"final residual\": "
              << json_number(report.iterations.empty() ? 0. : report.iterations.back().residual)
+             << ",\n    \"linear iterations per step\": " << json_number(report.linear_iterations / steps)
+             << ",\n    \"seconds per step\": " << json_number(iteration_seconds / steps)
+             << ",\n    \"peak memory per rank [MiB]\": " << json_number(peak_memory_max)
+             << ",\n    \"peak memory all ranks [MiB]\": " << json_number(peak_memory_sum)
              << ",\n    \"wall time [s]\": " << json_number(seconds) << ",\n    \"ranks\": " << state.n_ranks
              << "\n  },\n  \"caution\": " << json_string(caution) << "\n}\n";
         report::write_file_atomically((partial / "summary.json").string(), json.str());

@@ -1,5 +1,6 @@
 // Mesh, degrees of freedom, constraints and matrices of a flow solve.
 #include "solver/errors.h"
+#include "solver/flow/developed_profile.h"
 #include "solver/flow/flow_state.h"
 
 #include <deal.II/base/function.h>
@@ -79,26 +80,79 @@ namespace lentus::flow
       FormulationKind kind;
     };
 
-    /// Outward normal of the first face with boundary id `id` (rank-local; axis-aligned check).
-    int axis_of_normal(const FlowState &state, const types::boundary_id id, const std::string &role)
+    /// Where a boundary role lies: it must be a straight segment parallel to a coordinate axis.
+    struct Extent
     {
-      int axis = -1;
+      int    normal_axis;  ///< 0: normal along x (r), 1: along y (z)
+      double normal_sign;  ///< +1 if the outward normal points along +axis
+      double low, high;    ///< range of the other coordinate
+    };
+
+    Extent extent_of(const FlowState &state, const types::boundary_id id, const std::string &role)
+    {
+      double axis = -1., sign = 0., low = HUGE_VAL, high = -HUGE_VAL;
       for (const auto &cell : state.triangulation.active_cell_iterators())
         if (cell->is_locally_owned())
           for (const auto face_no : cell->face_indices())
             if (cell->face(face_no)->at_boundary() && cell->face(face_no)->boundary_id() == id)
               {
-                const Tensor<1, 2> edge = cell->face(face_no)->vertex(1) - cell->face(face_no)->vertex(0);
-                const int          face_axis = std::abs(edge[0]) < 1e-12 * edge.norm() ? 0 :
-                                               std::abs(edge[1]) < 1e-12 * edge.norm() ? 1 : -2;
+                const auto         face = cell->face(face_no);
+                const Tensor<1, 2> edge = face->vertex(1) - face->vertex(0);
+                const int face_axis = std::abs(edge[0]) < 1e-12 * edge.norm() ? 0 :
+                                      std::abs(edge[1]) < 1e-12 * edge.norm() ? 1 : -2;
                 if (face_axis == -2)
                   throw InputError("boundary role '" + role +
-                                   "': pressure and symmetry conditions need boundaries parallel to a coordinate "
-                                   "axis in this version");
+                                   "': pressure, symmetry and inflow conditions need boundaries parallel to a "
+                                   "coordinate axis in this version");
                 axis = face_axis;
+                sign = face->center()[face_axis] > cell->center()[face_axis] ? 1. : -1.;
+                for (unsigned int v = 0; v < 2; ++v)
+                  {
+                    low  = std::min(low, face->vertex(v)[1 - face_axis]);
+                    high = std::max(high, face->vertex(v)[1 - face_axis]);
+                  }
               }
-      return Utilities::MPI::max(axis, state.comm);
+      return {static_cast<int>(Utilities::MPI::max(axis, state.comm)), Utilities::MPI::max(sign, state.comm),
+              Utilities::MPI::min(low, state.comm), Utilities::MPI::max(high, state.comm)};
     }
+
+    int axis_of_normal(const FlowState &state, const types::boundary_id id, const std::string &role)
+    {
+      return extent_of(state, id, role).normal_axis;
+    }
+
+    /// The developed inflow profile on one role, as a velocity field.
+    class InflowVelocity : public Function<2>
+    {
+    public:
+      InflowVelocity(const FlowState &state, const input::BoundaryCondition &bc, const Extent &where)
+        : Function<2>(state.n_velocity + 1)
+        , extent(where)
+        , axisymmetric(is_axisymmetric(state.kind))
+      {
+        const bool pipe = axisymmetric;
+        if (pipe && (extent.normal_axis != 1 || std::abs(extent.low) > 1e-12 * std::abs(extent.high)))
+          throw InputError("boundary role '" + bc.role +
+                           "': an axisymmetric inflow must lie at constant z and reach from the axis to the wall");
+        const double half = pipe ? extent.high : 0.5 * (extent.high - extent.low);
+        profile           = std::make_unique<DevelopedProfile>(
+          *state.law, pipe ? DevelopedProfile::Channel::pipe : DevelopedProfile::Channel::slit, half, bc.flow_rate);
+      }
+
+      double value(const Point<2> &x, const unsigned int component) const override
+      {
+        if (static_cast<int>(component) != extent.normal_axis)
+          return 0.;
+        const int    t = 1 - extent.normal_axis;
+        const double s = axisymmetric ? x[t] : x[t] - 0.5 * (extent.low + extent.high);
+        return -extent.normal_sign * profile->velocity(s); // into the domain
+      }
+
+    private:
+      Extent                            extent;
+      bool                              axisymmetric;
+      std::unique_ptr<DevelopedProfile> profile;
+    };
   } // namespace
 
   void setup_mesh_and_dofs(FlowState &state)
@@ -123,6 +177,7 @@ namespace lentus::flow
           {
             const types::boundary_id id = roles.at(bc.role);
             std::vector<bool>        mask(n_components, false);
+            std::unique_ptr<Function<2>> inflow;
             const Function<2>       *values = &zero;
             switch (bc.type)
               {
@@ -144,6 +199,14 @@ namespace lentus::flow
                   mask[0] = true; // u_r
                   if (state.n_velocity == 3)
                     mask[2] = true; // u_theta
+                  break;
+                case input::BoundaryCondition::Type::inflow:
+                  std::fill(mask.begin(), mask.begin() + state.n_velocity, true);
+                  if (!homogeneous)
+                    {
+                      inflow = std::make_unique<InflowVelocity>(state, bc, extent_of(state, id, bc.role));
+                      values = inflow.get();
+                    }
                   break;
                 case input::BoundaryCondition::Type::traction_free:
                   continue;

@@ -32,6 +32,9 @@ namespace lentus::input
        "Roles of outflows with zero traction (do-nothing); not exact for developed flow at a die exit."},
       {"Symmetry", BoundaryCondition::Type::symmetry, "Roles of symmetry planes or slip walls: u . n = 0."},
       {"Axis", BoundaryCondition::Type::axis, "Roles on the axis r = 0 (axisymmetric): u_r = 0, u_theta = 0."},
+      {"Inflow", BoundaryCondition::Type::inflow,
+       "Roles where the fluid enters fully developed, with the profile of its own viscosity law carrying the "
+       "flow rate of Inflow rates (a slit from wall to wall, or a pipe from the axis to the wall)."},
     };
 
     const std::string conditions = "Boundary conditions/";
@@ -67,6 +70,9 @@ namespace lentus::input
                      std::string(condition.documentation) + " Comma-separated role names of the shape.");
     schema.declare(conditions + "Pressure values", "", ValueKind::real_list(Range::any()),
                    "p [Pa] for each role listed under Pressure, in the same order.");
+    schema.declare(conditions + "Inflow rates", "", ValueKind::real_list(Range::any()),
+                   "Q into the domain for each role listed under Inflow, in order: [m^3/s] axisymmetric, "
+                   "[m^2/s] per metre of depth planar.");
     schema.declare(conditions + "Wall velocity", "0, 0", ValueKind::real_list(Range::any()),
                    "[m/s] velocity of the moving walls, two mesh components (x, y) or (r, z).");
     schema.declare(conditions + "Rotation rate", "0", ValueKind::real(Range::any()),
@@ -154,7 +160,11 @@ namespace lentus::input
     std::vector<double> pressures;
     for (const std::string &value : split_list(file.get(conditions + "Pressure values")))
       pressures.push_back(*parse_real(value));
-    unsigned int pressure_index = 0;
+    unsigned int        pressure_index = 0;
+    std::vector<double> inflow_rates;
+    for (const std::string &value : split_list(file.get(conditions + "Inflow rates")))
+      inflow_rates.push_back(*parse_real(value));
+    unsigned int inflow_index = 0;
     for (const ConditionKey &condition : condition_keys)
       {
         const std::string key = conditions + condition.key;
@@ -177,17 +187,26 @@ namespace lentus::input
                             "fewer values than roles under Pressure", "one pressure [Pa] per role, in order");
                 bc.pressure = pressures[pressure_index++];
               }
+            if (condition.type == BoundaryCondition::Type::inflow)
+              {
+                if (inflow_index >= inflow_rates.size())
+                  file.fail(conditions + "Inflow rates", "fewer values than roles under Inflow",
+                            "one flow rate per role, in order");
+                bc.flow_rate = inflow_rates[inflow_index++];
+              }
             flow.conditions.push_back(bc);
           }
       }
     if (pressure_index != pressures.size())
       file.fail(conditions + "Pressure values", "more values than roles under Pressure",
                 "one pressure [Pa] per role, in order");
+    if (inflow_index != inflow_rates.size())
+      file.fail(conditions + "Inflow rates", "more values than roles under Inflow", "one flow rate per role, in order");
     for (const std::string &role : roles)
       if (!assigned.count(role))
         file.fail(conditions + "No-slip", "boundary role '" + role + "' of shape " + shape.name + " has no condition",
                   "every role (" + role_list + ") listed under exactly one of No-slip, Moving wall, Pressure, "
-                  "Traction-free, Symmetry, Axis");
+                  "Traction-free, Symmetry, Axis, Inflow");
     const auto wall_velocity = split_list(file.get(conditions + "Wall velocity"));
     if (wall_velocity.size() != 2)
       file.fail(conditions + "Wall velocity", "needs two components", "two real numbers [m/s]");

@@ -26,11 +26,13 @@ namespace lentus::input
       pressure,      ///< fully developed: tangential u = 0, normal stress = -p
       traction_free, ///< sigma n = 0 ("do-nothing")
       symmetry,      ///< u . n = 0, zero tangential traction
-      axis           ///< r = 0: u_r = 0, u_theta = 0
+      axis,          ///< r = 0: u_r = 0, u_theta = 0
+      inflow         ///< fully developed profile of the fluid's own law carrying a set flow rate
     };
     std::string role;
     Type        type;
-    double      pressure = 0.; ///< [Pa], for Type::pressure
+    double      pressure  = 0.; ///< [Pa], for Type::pressure
+    double      flow_rate = 0.; ///< into the domain, [m^3/s] (axisymmetric) or [m^2/s] (planar), for Type::inflow
   };
 
   struct FlowCase

@@ -1,0 +1,89 @@
+// Inflow at a set flow rate with the fluid's own developed profile, and the
+// plug of a Bingham fluid in a slit.
+#include "run_case.h"
+
+#include <gtest/gtest.h>
+
+#include <cmath>
+
+TEST(InflowProfile, PowerLawPipePressureDrop)
+{
+  // Source: CHECKS.md D4 / A2 (power-law capillary): for Q = (pi n/(3n+1)) R^3 (tau_w/K)^(1/n) the
+  // wall stress is tau_w and the developed pressure drop 2 L tau_w / R. With n = 0.5, K = 1 Pa s^n,
+  // R = 1 m, L = 2 m, tau_w = 1 Pa: Q = 0.2 pi m^3/s, pressure drop 4 Pa. The inflow carries the developed
+  // profile, so the whole pipe is developed: within 0.5%.
+  const double      Q    = M_PI * 0.5 / 2.5;
+  const std::string text = R"(subsection Rheology
+  set Viscosity law = Power law
+  subsection Power law
+    set Consistency = 1
+    set Flow index = 0.5
+    set Maximum viscosity = 1e8
+  end
+end
+subsection Geometry
+  set Shape = Pipe
+  set Refinement = 3
+  subsection Pipe
+    set Radius = 1
+    set Length = 2
+  end
+end
+subsection Flow
+  set Formulation = axisymmetric
+end
+subsection Boundary conditions
+  set No-slip = wall
+  set Axis = axis
+  set Inflow = inlet
+  set Inflow rates = )" + std::to_string(Q) + R"(
+  set Pressure = outlet
+  set Pressure values = 0
+end
+)";
+  const auto result = lentus::testing::run_case("inflow_power_law_pipe", text);
+  ASSERT_TRUE(result.converged) << result.reason;
+  EXPECT_NEAR(result.number("flow rate out through inlet"), -Q, 1e-3 * Q);
+  EXPECT_NEAR(result.number("flow rate out through outlet"), Q, 1e-3 * Q);
+  EXPECT_NEAR(result.number("pressure drop inlet to outlet"), 4., 0.005 * 4.);
+  EXPECT_NEAR(result.number("power input through boundaries"), result.number("viscous dissipation"),
+              0.005 * result.number("viscous dissipation"));
+}
+
+TEST(BinghamSlit, PlugWidthAndFlowRate)
+{
+  // Source: CHECKS.md A3 (Buckingham 1921; Bird, Dai & Yarusso 1983): slit of half-gap h = 0.5 m,
+  // G = 1 Pa/m, mu_p = 1 Pa s, tau_y = 0.25 Pa: tau_w = G h = 0.5 Pa, phi = 0.5, plug half-width
+  // y_p = phi h, q = (2 h^3 G / (3 mu_p)) [1 - 3/2 phi + phi^3 / 2] = 0.0260417 m^2/s.
+  // The developed stress is exactly tau = G |y| whatever the law, so the unyielded (|tau| < tau_y)
+  // fraction of the channel is phi = 0.5 up to the quadrature-point spacing (1/48 of the gap here);
+  // the flow rate carries the regularization error O(1/M) (M = 1e4 s): within 0.5%.
+  const std::string text = R"(subsection Rheology
+  set Viscosity law = Bingham
+  subsection Bingham
+    set Plastic viscosity = 1
+    set Yield stress = 0.25
+    set Regularization exponent = 1e4
+  end
+end
+subsection Geometry
+  set Shape = Channel
+  set Refinement = 4
+  subsection Channel
+    set Length = 1
+    set Height = 1
+  end
+end
+subsection Boundary conditions
+  set No-slip = bottom wall, top wall
+  set Pressure = inlet, outlet
+  set Pressure values = 1, 0
+end
+)";
+  const auto result = lentus::testing::run_case("bingham_slit", text);
+  ASSERT_TRUE(result.converged) << result.reason;
+  const double phi = 0.5, h = 0.5;
+  const double q   = 2. * h * h * h / 3. * (1. - 1.5 * phi + 0.5 * phi * phi * phi);
+  EXPECT_NEAR(result.number("flow rate out through outlet"), q, 0.005 * q);
+  EXPECT_NEAR(result.number("unyielded area fraction"), phi, 1. / 48.);
+}
