@@ -80,11 +80,18 @@ namespace lentus::flow
         check(PCFieldSplitSetSchurFactType(pc, PC_FIELDSPLIT_SCHUR_FACT_UPPER), "PCFieldSplitSetSchurFactType");
         check(PCFieldSplitSetSchurPre(pc, PC_FIELDSPLIT_SCHUR_PRE_USER, schur_preconditioner),
               "PCFieldSplitSetSchurPre");
-        check(PetscOptionsSetValue(nullptr, "-lentus_fieldsplit_u_ksp_type", "preonly"), "options");
-        check(PetscOptionsSetValue(nullptr, "-lentus_fieldsplit_u_pc_type", "hypre"), "options");
-        check(PetscOptionsSetValue(nullptr, "-lentus_fieldsplit_u_pc_hypre_type", "boomeramg"), "options");
-        check(PetscOptionsSetValue(nullptr, "-lentus_fieldsplit_p_ksp_type", "preonly"), "options");
-        check(PetscOptionsSetValue(nullptr, "-lentus_fieldsplit_p_pc_type", "jacobi"), "options");
+        // Defaults; PETSC_OPTIONS (e.g. "-lentus_fieldsplit_u_pc_type gamg") may override them.
+        for (const auto &[name, value] : {std::pair<const char *, const char *>{"-lentus_fieldsplit_u_ksp_type", "preonly"},
+                                          {"-lentus_fieldsplit_u_pc_type", "hypre"},
+                                          {"-lentus_fieldsplit_u_pc_hypre_type", "boomeramg"},
+                                          {"-lentus_fieldsplit_p_ksp_type", "preonly"},
+                                          {"-lentus_fieldsplit_p_pc_type", "jacobi"}})
+          {
+            PetscBool given = PETSC_FALSE;
+            check(PetscOptionsHasName(nullptr, nullptr, name, &given), "PetscOptionsHasName");
+            if (!given)
+              check(PetscOptionsSetValue(nullptr, name, value), "PetscOptionsSetValue");
+          }
         check(KSPSetFromOptions(ksp), "KSPSetFromOptions");
       }
 

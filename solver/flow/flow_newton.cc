@@ -148,11 +148,20 @@ namespace lentus::flow
       }
     state.log.line("  direct attempt failed: " + why);
 
-    // Continuation from an easier fluid, each step starting from the previous solution.
+    // Continuation from an easier problem, each step starting from the previous solution:
+    // in the Reynolds number (density) with inertia, else in the regularization exponent M of a
+    // yield-stress fluid, else in the flow index.
     const input::Fluid &fluid = flow.fluid;
     std::string         key;
     std::vector<double> path;
-    if (fluid.parameters.count("Regularization exponent") && fluid.parameters.at("Yield stress") > 0.)
+    const double        full_density = state.density;
+    if (full_density > 0. && flow.inertia)
+      {
+        key = "Density (Reynolds number)";
+        for (const double fraction : {1e-3, 1e-2, 0.1, 0.3, 1.})
+          path.push_back(full_density * fraction);
+      }
+    else if (fluid.parameters.count("Regularization exponent") && fluid.parameters.at("Yield stress") > 0.)
       {
         key            = "Regularization exponent";
         const double M = fluid.parameters.at(key);
@@ -175,16 +184,21 @@ namespace lentus::flow
     initial_solution(state);
     for (const double value : path)
       {
-        state.law = law_with(fluid, key, value);
+        if (key.rfind("Density", 0) == 0)
+          state.density = value;
+        else
+          state.law = law_with(fluid, key, value);
         report.continuation_steps.push_back(key + " = " + rheology::format_short(value));
         state.log.line(" " + key + " = " + rheology::format_short(value));
         if (!iterate(state, direct, report, why))
           {
             state.law     = fluid.law;
+            state.density = full_density;
             report.reason = "continuation in " + key + " failed at " + rheology::format_short(value) + ": " + why;
             return report;
           }
       }
+    state.density    = full_density;
     state.law        = fluid.law;
     report.converged = true;
     return report;

@@ -251,10 +251,17 @@ namespace lentus::input
         if (!declaration)
           {
             std::vector<std::string> all;
+            std::string              same_leaf;
             for (const KeyDeclaration &key : schema.keys())
-              all.push_back(key.path);
+              {
+                all.push_back(key.path);
+                if (same_leaf.empty() && path.size() < key.path.size() &&
+                    key.path.compare(key.path.size() - path.size(), path.size(), path) == 0 &&
+                    key.path[key.path.size() - path.size() - 1] == '/')
+                  same_leaf = " (did you mean '" + key.path + "'?)";
+              }
             throw InputError(where, 0,
-                             path + ": unknown key" + suggestion(path, all) +
+                             path + ": unknown key" + (same_leaf.empty() ? suggestion(path, all) : same_leaf) +
                                "; keys are written Section/Subsection/Key as in the case file");
           }
         if (!value.empty())

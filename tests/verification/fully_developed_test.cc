@@ -141,6 +141,10 @@ TEST(BinghamPipe, RegularizedFlowRateAndConvergenceToBuckinghamReiner)
   // The error against the ideal Bingham fluid shrinks as M grows.
   EXPECT_LT(relative(q100, buckingham_reiner), relative(q10, buckingham_reiner));
   EXPECT_LT(relative(sharp.number("power input through boundaries"), sharp.number("viscous dissipation")), 0.005);
+  // Plug radius r_p = phi R (Buckingham-Reiner; CHECKS.md A3): the developed stress is exactly
+  // tau = G r / 2 whatever the law, so the unyielded part of the meridional section is r < r_p,
+  // a fraction phi = 0.5 of it, up to the quadrature-point spacing (1/24 of the radius here).
+  EXPECT_NEAR(sharp.number("unyielded area fraction"), 0.5, 1. / 24.);
 }
 
 TEST(HerschelBulkleyPipe, FlowRate)
