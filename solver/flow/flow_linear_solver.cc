@@ -38,7 +38,7 @@ namespace lentus::flow
     }
   } // namespace
 
-  unsigned int solve_linear(FlowState &state, Vector &update, const bool direct)
+  unsigned int solve_linear(FlowState &state, Vector &update, const bool direct, const double relative_tolerance)
   {
     KSP ksp;
     PC  pc;
@@ -64,6 +64,8 @@ namespace lentus::flow
         for (unsigned int c = 0; c < state.n_velocity; ++c)
           velocity_mask.set(c, true);
         velocity_is = field_index_set(state, velocity_mask);
+        // Node-wise numbering (renumber_node_wise): the velocity block is a system of n_velocity unknowns per node.
+        check(ISSetBlockSize(velocity_is, static_cast<PetscInt>(state.n_velocity)), "ISSetBlockSize");
         pressure_is = field_index_set(state, state.fe.component_mask(pressure));
         check(MatCreateSubMatrix(state.pressure_mass.petsc_matrix(), pressure_is, pressure_is, MAT_INITIAL_MATRIX,
                                  &schur_preconditioner),
@@ -72,7 +74,7 @@ namespace lentus::flow
         check(MatScale(schur_preconditioner, -1.), "MatScale");
         check(KSPSetType(ksp, KSPFGMRES), "KSPSetType");
         check(KSPGMRESSetRestart(ksp, 200), "KSPGMRESSetRestart");
-        check(KSPSetTolerances(ksp, 1e-10, 1e-30, 1e10, 2000), "KSPSetTolerances");
+        check(KSPSetTolerances(ksp, relative_tolerance, 1e-30, 1e10, 2000), "KSPSetTolerances");
         check(PCSetType(pc, PCFIELDSPLIT), "PCSetType");
         check(PCFieldSplitSetIS(pc, "u", velocity_is), "PCFieldSplitSetIS");
         check(PCFieldSplitSetIS(pc, "p", pressure_is), "PCFieldSplitSetIS");

@@ -49,6 +49,7 @@ namespace lentus::flow
       const double first      = assemble(state, state.solution, Linearization::none);
       double       residual   = first;
       unsigned int picard     = 0;
+      double       previous   = residual;
       const double target     = std::max(flow.relative_tolerance * first, flow.absolute_tolerance);
       state.log.line(format("  initial residual %.3e", first));
       if (!std::isfinite(first))
@@ -67,10 +68,16 @@ namespace lentus::flow
           if (linearization == Linearization::picard)
             ++picard;
           assemble(state, state.solution, linearization);
+          // Inexact Newton (Eisenstat & Walker 1996, choice 2): solve each linear system only as
+          // accurately as the nonlinear residual warrants, but well below the final target.
+          const double forcing = linearization == Linearization::picard ?
+                                   1e-2 :
+                                   std::min(1e-1, std::max({0.9 * std::pow(residual / previous, 2.),
+                                                            0.1 * target / residual, 1e-12}));
           unsigned int linear_iterations = 0;
           try
             {
-              linear_iterations = solve_linear(state, update, direct);
+              linear_iterations = solve_linear(state, update, direct, forcing);
             }
           catch (const NoConvergence &error)
             {
@@ -114,6 +121,7 @@ namespace lentus::flow
             }
           current        = trial;
           state.solution = ghosted;
+          previous       = residual;
           residual       = trial_residual;
           const char *name = linearization == Linearization::picard ? "Picard" : "Newton";
           report.iterations.push_back({iteration, name, residual, step, linear_iterations, timer.wall_time()});

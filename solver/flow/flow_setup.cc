@@ -155,11 +155,48 @@ namespace lentus::flow
     };
   } // namespace
 
+  /// Within each rank's range: the velocity unknowns node by node (all components of a node
+  /// consecutive), then the pressure. The velocity block then has a block size equal to the
+  /// number of velocity components, which lets algebraic multigrid treat it as a system.
+  void renumber_node_wise(FlowState &state)
+  {
+    const IndexSet                       owned = state.dof_handler.locally_owned_dofs();
+    std::vector<types::global_dof_index> new_numbers(owned.n_elements(), numbers::invalid_dof_index);
+    types::global_dof_index              next = owned.n_elements() ? *owned.begin() : 0;
+    const FiniteElement<2>              &velocity_base = state.fe.base_element(0);
+    std::vector<types::global_dof_index> dof_indices(state.fe.n_dofs_per_cell());
+    const auto assign = [&](const types::global_dof_index index) {
+      if (owned.is_element(index) && new_numbers[owned.index_within_set(index)] == numbers::invalid_dof_index)
+        new_numbers[owned.index_within_set(index)] = next++;
+    };
+    for (const auto &cell : state.dof_handler.active_cell_iterators())
+      if (cell->is_locally_owned())
+        {
+          cell->get_dof_indices(dof_indices);
+          for (unsigned int j = 0; j < velocity_base.n_dofs_per_cell(); ++j)
+            for (unsigned int c = 0; c < state.n_velocity; ++c)
+              assign(dof_indices[state.fe.component_to_system_index(c, j)]);
+        }
+    for (const auto &cell : state.dof_handler.active_cell_iterators())
+      if (cell->is_locally_owned())
+        {
+          cell->get_dof_indices(dof_indices);
+          for (unsigned int j = 0; j < state.fe.base_element(1).n_dofs_per_cell(); ++j)
+            assign(dof_indices[state.fe.component_to_system_index(state.n_velocity, j)]);
+        }
+    // Unknowns owned here but only on cells of other ranks (rare): keep them, at the end.
+    for (std::size_t i = 0; i < new_numbers.size(); ++i)
+      if (new_numbers[i] == numbers::invalid_dof_index)
+        new_numbers[i] = next++;
+    state.dof_handler.renumber_dofs(new_numbers);
+  }
+
   void setup_mesh_and_dofs(FlowState &state)
   {
     const input::FlowCase &flow = state.flow;
     flow.geometry->create_mesh(state.triangulation, flow.refinement);
     state.dof_handler.distribute_dofs(state.fe);
+    renumber_node_wise(state);
     state.owned    = state.dof_handler.locally_owned_dofs();
     DoFTools::extract_locally_relevant_dofs(state.dof_handler, state.relevant);
 

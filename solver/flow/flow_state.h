@@ -83,6 +83,8 @@ namespace lentus::flow
 
   // flow_setup.cc
   void setup_mesh_and_dofs(FlowState &state);
+  /// Velocity node by node, then pressure, within each rank's range (called by setup_mesh_and_dofs).
+  void renumber_node_wise(FlowState &state);
   /// The initial iterate: zero with the Dirichlet values.
   void initial_solution(FlowState &state);
 
@@ -106,7 +108,8 @@ namespace lentus::flow
 
   // flow_linear_solver.cc
   /// Solves system_matrix * update = residual; returns the iterations (1 for the direct solver).
-  unsigned int solve_linear(FlowState &state, Vector &update, bool direct);
+  /// `relative_tolerance` is the iterative solver's residual reduction.
+  unsigned int solve_linear(FlowState &state, Vector &update, bool direct, double relative_tolerance = 1e-10);
 
   // flow_newton.cc
   /// Newton with line search, Picard start and continuation. Leaves the last iterate in state.solution.
