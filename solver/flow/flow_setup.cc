@@ -90,7 +90,8 @@ namespace lentus::flow
 
     Extent extent_of(const FlowState &state, const types::boundary_id id, const std::string &role)
     {
-      double axis = -1., sign = 0., low = HUGE_VAL, high = -HUGE_VAL;
+      // Ranks without faces of the role keep values that lose every max/min reduction.
+      double axis = -1., sign = -HUGE_VAL, low = HUGE_VAL, high = -HUGE_VAL;
       for (const auto &cell : state.triangulation.active_cell_iterators())
         if (cell->is_locally_owned())
           for (const auto face_no : cell->face_indices())
