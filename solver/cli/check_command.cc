@@ -5,24 +5,65 @@
 #include "solver/input/case_schema.h"
 #include "solver/input/flow_case.h"
 #include "solver/input/fluid_section.h"
+#include "solver/sweep/sweep_file.h"
 
 #include <cmath>
+#include <fstream>
 #include <iostream>
+#include <sstream>
 
 namespace lentus::cli
 {
+  namespace
+  {
+    /// Every case of a sweep file must be valid: all problems are listed, exit code 2.
+    int check_sweep(const Arguments &arguments)
+    {
+      sweep::SweepSettings settings;
+      if (arguments.options.count("--base"))
+        settings.base_case = arguments.options.at("--base");
+      settings.sets = arguments.sets;
+      const sweep::SweepPlan plan = sweep::read_sweep_file(arguments.positional[0], settings, input::case_schema());
+      if (plan.n_invalid() > 0)
+        {
+          std::string message = std::to_string(plan.n_invalid()) + " of " + std::to_string(plan.cases.size()) +
+                                " cases are invalid:";
+          for (const sweep::SweepCase &sweep_case : plan.cases)
+            if (!sweep_case.invalid_reason.empty())
+              message += "\n  " + sweep_case.invalid_reason;
+          throw InputError(plan.sweep_file, 0, message);
+        }
+      std::cout << plan.sweep_file << ": valid sweep file\n  " << plan.cases.size() << " cases (" << plan.shape_description()
+                << ") of base case " << plan.base_case << "\n  varied:";
+      for (const std::string &key : plan.varied_keys)
+        std::cout << (&key == &plan.varied_keys.front() ? " " : "; ") << key;
+      std::cout << "\n  results would go to " << plan.results_folder << '\n';
+      return 0;
+    }
+  } // namespace
+
   int check_command(const int argc, const char *const *argv, const int first)
   {
-    const Arguments arguments = parse_arguments(argc, argv, first, {}, {"--help"});
+    const Arguments arguments = parse_arguments(argc, argv, first, {"--base"}, {"--help"});
     if (arguments.has("--help"))
       {
-        std::cout << "usage: lentus check CASE [--set Section/Key=VALUE ...]\n\n"
+        std::cout << "usage: lentus check CASE [--set Section/Key=VALUE ...]\n"
+                     "       lentus check SWEEP [--base CASE] [--set Section/Key=VALUE ...]\n\n"
                      "Validates CASE without solving: syntax, sections, keys, values and the relations\n"
-                     "between them. Prints what was understood; exit code 2 and file:line: key on error.\n";
+                     "between them. Prints what was understood; exit code 2 and file:line: key on error.\n"
+                     "A sweep file is recognised by its statements (base case, vary, case, ...): every\n"
+                     "case it makes is read as the flow solver would read it.\n";
         return 0;
       }
     if (arguments.positional.size() != 1)
       throw InputError("command line", 0, "check needs exactly one case file; see lentus check --help");
+    {
+      std::ifstream     input(arguments.positional[0]);
+      std::stringstream text;
+      text << input.rdbuf();
+      if (input && sweep::looks_like_sweep_file(text.str()))
+        return check_sweep(arguments);
+    }
 
     const input::CaseFile file  = input::CaseFile::read(arguments.positional[0], input::case_schema(), arguments.sets);
     const input::Fluid    fluid = input::read_fluid(file);

@@ -23,7 +23,9 @@ commands:
   laws         list the viscosity laws and temperature shifts with their parameters and units
   flow-curve   print (and draw) the flow curve of the fluid in a case file
   run          solve the flow in a case file and write its results folder
-  check        validate a case file without solving
+  check        validate a case file (or a sweep file) without solving
+  sweep        run every case of a sweep file, on MPI ranks, resumable; one results table
+  collect      merge the finished cases of a sweep into its results table
   fit          fit viscosity laws to rheometer data (confidence intervals, ranking, case section)
 
 `lentus COMMAND --help` describes each command.
@@ -60,8 +62,12 @@ int main(int argc, char **argv)
         return cli::check_command(argc, argv, 2);
       if (command == "fit")
         return cli::fit_command(argc, argv, 2);
+      if (command == "sweep")
+        return cli::sweep_command(argc, argv, 2);
+      if (command == "collect")
+        return cli::collect_command(argc, argv, 2);
       throw InputError("command line", 0,
-                       "unknown command '" + command + "'; allowed: laws, flow-curve, check, fit (see lentus --help)");
+                       "unknown command '" + command + "'; allowed: laws, flow-curve, run, check, fit, sweep, collect (see lentus --help)");
     }
   catch (const InputError &error)
     {

@@ -1,0 +1,312 @@
+#include "solver/sweep/results_table.h"
+
+#include "solver/input/value_kind.h"
+#include "solver/report/atomic_file.h"
+#include "solver/sweep/sweep_file.h"
+
+#include <cmath>
+#include <cstdio>
+#include <filesystem>
+#include <fstream>
+#include <sstream>
+
+namespace lentus::sweep
+{
+  namespace
+  {
+    std::string escape(const std::string &text)
+    {
+      std::string out;
+      for (const char c : text)
+        out += c == '\\' ? std::string("\\\\") : c == '\t' ? std::string("\\t") : c == '\n' ? std::string("\\n") :
+                                                                                            std::string(1, c);
+      return out;
+    }
+
+    std::string unescape(const std::string &text)
+    {
+      std::string out;
+      for (std::size_t i = 0; i < text.size(); ++i)
+        if (text[i] == '\\' && i + 1 < text.size())
+          {
+            const char next = text[++i];
+            out += next == 't' ? '\t' : next == 'n' ? '\n' : next;
+          }
+        else
+          out += text[i];
+      return out;
+    }
+
+    std::vector<std::string> split_tabs(const std::string &line)
+    {
+      std::vector<std::string> fields;
+      std::string              field;
+      std::istringstream       stream(line);
+      while (std::getline(stream, field, '\t'))
+        fields.push_back(unescape(field));
+      if (!line.empty() && line.back() == '\t')
+        fields.emplace_back();
+      return fields;
+    }
+
+    std::string number_text(const double value)
+    {
+      if (!std::isfinite(value))
+        return "";
+      char buffer[40];
+      std::snprintf(buffer, sizeof buffer, "%.10g", value);
+      return buffer;
+    }
+
+    std::string csv_cell(const std::string &text)
+    {
+      if (text.find_first_of(",\"\n") == std::string::npos)
+        return text;
+      std::string out = "\"";
+      for (const char c : text)
+        out += c == '"' ? std::string("\"\"") : std::string(1, c);
+      return out + "\"";
+    }
+
+    std::string json_string(const std::string &text)
+    {
+      std::string out = "\"";
+      for (const char c : text)
+        {
+          if (c == '"' || c == '\\')
+            out += std::string("\\") + c;
+          else if (c == '\n')
+            out += "\\n";
+          else if (c == '\t')
+            out += "\\t";
+          else if (static_cast<unsigned char>(c) < 0x20)
+            out += ' ';
+          else
+            out += c;
+        }
+      return out + "\"";
+    }
+
+    /// A varied value in JSON: a number if it reads as one, else a string.
+    std::string json_value(const std::string &text)
+    {
+      const auto number = input::parse_real(text);
+      return number && std::isfinite(*number) ? number_text(*number) : json_string(text);
+    }
+
+    std::string json_number(const double value)
+    {
+      return std::isfinite(value) ? number_text(value) : "null";
+    }
+  } // namespace
+
+  std::string row_text(const ResultRow &row)
+  {
+    std::ostringstream text;
+    char               fingerprint[20];
+    std::snprintf(fingerprint, sizeof fingerprint, "%016llx", static_cast<unsigned long long>(row.fingerprint));
+    text << "index\t" << row.index << "\nid\t" << escape(row.id) << "\nname\t" << escape(row.name) << "\nfolder\t"
+         << escape(row.folder) << "\nfingerprint\t" << fingerprint << "\n";
+    for (const auto &[key, value] : row.values)
+      text << "value\t" << escape(key) << "\t" << escape(value) << "\n";
+    text << "status\t" << escape(row.status) << "\nreason\t" << escape(row.reason) << "\n";
+    for (const ResultNumber &number : row.numbers)
+      {
+        char value[40];
+        std::snprintf(value, sizeof value, "%.17g", number.value);
+        text << "number\t" << escape(number.name) << "\t" << value << "\t" << escape(number.unit) << "\n";
+      }
+    text << "Newton iterations\t" << row.newton_iterations << "\nwall time\t" << number_text(row.wall_time)
+         << "\nranks\t" << row.ranks << "\nend\n";
+    return text.str();
+  }
+
+  bool parse_row(const std::string &text, ResultRow &row)
+  {
+    row = ResultRow();
+    std::istringstream stream(text);
+    std::string        line;
+    bool               complete = false;
+    try
+      {
+        while (std::getline(stream, line))
+          {
+            const std::vector<std::string> f = split_tabs(line);
+            if (f.empty())
+              return false;
+            const std::string &key = f[0];
+            if (key == "end")
+              {
+                complete = true;
+                break;
+              }
+            if (f.size() < 2)
+              return false;
+            if (key == "index")
+              row.index = std::stoul(f[1]);
+            else if (key == "id")
+              row.id = f[1];
+            else if (key == "name")
+              row.name = f[1];
+            else if (key == "folder")
+              row.folder = f[1];
+            else if (key == "fingerprint")
+              row.fingerprint = std::stoull(f[1], nullptr, 16);
+            else if (key == "value" && f.size() == 3)
+              row.values.emplace_back(f[1], f[2]);
+            else if (key == "status")
+              row.status = f[1];
+            else if (key == "reason")
+              row.reason = f[1];
+            else if (key == "number" && f.size() == 4)
+              row.numbers.push_back({f[1], std::stod(f[2]), f[3]});
+            else if (key == "Newton iterations")
+              row.newton_iterations = std::stoul(f[1]);
+            else if (key == "wall time")
+              row.wall_time = f[1].empty() ? 0. : std::stod(f[1]);
+            else if (key == "ranks")
+              row.ranks = std::stoul(f[1]);
+            else
+              return false;
+          }
+      }
+    catch (const std::exception &)
+      {
+        return false;
+      }
+    return complete && !row.id.empty() && !row.status.empty();
+  }
+
+  std::string row_path(const std::string &results_folder, const std::string &id)
+  {
+    return (std::filesystem::path(results_folder) / "rows" / (id + ".txt")).string();
+  }
+
+  void write_row(const std::string &results_folder, const ResultRow &row)
+  {
+    std::filesystem::create_directories(std::filesystem::path(results_folder) / "rows");
+    report::write_file_atomically(row_path(results_folder, row.id), row_text(row));
+  }
+
+  bool read_row(const std::string &results_folder, const std::string &id, const std::uint64_t fingerprint,
+                ResultRow &row)
+  {
+    std::ifstream input(row_path(results_folder, id));
+    if (!input)
+      return false;
+    std::stringstream text;
+    text << input.rdbuf();
+    return parse_row(text.str(), row) && row.id == id && row.fingerprint == fingerprint;
+  }
+
+  std::pair<std::string, std::string> table_text(const std::vector<ResultRow> &rows,
+                                                 const std::vector<std::string> &varied_keys,
+                                                 const std::vector<std::string> &varied_units,
+                                                 const bool with_names)
+  {
+    // Design-number columns: in order of first appearance; the unit of the first row that has it.
+    std::vector<std::pair<std::string, std::string>> columns;
+    for (const ResultRow &row : rows)
+      for (const ResultNumber &number : row.numbers)
+        {
+          bool known = false;
+          for (const auto &column : columns)
+            known = known || column.first == number.name;
+          if (!known)
+            columns.emplace_back(number.name, number.unit);
+        }
+
+    std::ostringstream csv, jsonl;
+    csv << "case";
+    if (with_names)
+      csv << ",name";
+    for (std::size_t k = 0; k < varied_keys.size(); ++k)
+      csv << "," << csv_cell(varied_keys[k] + (varied_units[k].empty() ? "" : " [" + varied_units[k] + "]"));
+    csv << ",status,reason";
+    for (const auto &[name, unit] : columns)
+      csv << "," << csv_cell(name + " [" + unit + "]");
+    csv << ",Newton iterations,wall time [s],ranks,folder\n";
+
+    for (const ResultRow &row : rows)
+      {
+        auto value_of = [&](const std::string &key) {
+          for (const auto &[k, v] : row.values)
+            if (k == key)
+              return v;
+          return std::string();
+        };
+        csv << row.id;
+        if (with_names)
+          csv << "," << csv_cell(row.name);
+        for (const std::string &key : varied_keys)
+          csv << "," << csv_cell(value_of(key));
+        csv << "," << csv_cell(row.status) << "," << csv_cell(row.reason);
+        for (const auto &column : columns)
+          {
+            std::string cell;
+            for (const ResultNumber &number : row.numbers)
+              if (number.name == column.first)
+                cell = number_text(number.value);
+            csv << "," << cell;
+          }
+        csv << "," << row.newton_iterations << "," << number_text(row.wall_time) << "," << row.ranks << ","
+            << csv_cell(row.folder) << "\n";
+
+        jsonl << "{\"case\": " << json_string(row.id) << ", \"index\": " << row.index;
+        if (with_names)
+          jsonl << ", \"name\": " << json_string(row.name);
+        jsonl << ", \"values\": {";
+        for (std::size_t k = 0; k < varied_keys.size(); ++k)
+          {
+            jsonl << (k ? ", " : "") << json_string(varied_keys[k]) << ": {\"value\": ";
+            const std::string value = value_of(varied_keys[k]);
+            jsonl << (value.empty() ? std::string("null") : json_value(value)) << ", \"unit\": "
+                  << json_string(varied_units[k]) << "}";
+          }
+        jsonl << "}, \"status\": " << json_string(row.status) << ", \"reason\": " << json_string(row.reason)
+              << ", \"design numbers\": {";
+        for (std::size_t i = 0; i < row.numbers.size(); ++i)
+          jsonl << (i ? ", " : "") << json_string(row.numbers[i].name)
+                << ": {\"value\": " << json_number(row.numbers[i].value)
+                << ", \"unit\": " << json_string(row.numbers[i].unit) << "}";
+        jsonl << "}, \"Newton iterations\": " << row.newton_iterations
+              << ", \"wall time [s]\": " << json_number(row.wall_time) << ", \"ranks\": " << row.ranks
+              << ", \"folder\": " << json_string(row.folder) << "}\n";
+      }
+    return {csv.str(), jsonl.str()};
+  }
+
+  CollectReport collect_results(const SweepPlan &plan, const input::CaseSchema &schema)
+  {
+    CollectReport          report;
+    std::vector<ResultRow> rows;
+    for (const SweepCase &sweep_case : plan.cases)
+      {
+        ResultRow row;
+        if (read_row(plan.results_folder, sweep_case.id, sweep_case.fingerprint, row))
+          {
+            report.failures += row.status != status::converged;
+            bool counted = false;
+            for (auto &[name, count] : report.by_status)
+              if (name == row.status)
+                counted = ++count > 0;
+            if (!counted)
+              report.by_status.emplace_back(row.status, 1);
+            rows.push_back(row);
+          }
+        else
+          report.missing.push_back(sweep_case.id);
+      }
+    report.rows = rows.size();
+    std::vector<std::string> units;
+    for (const std::string &key : plan.varied_keys)
+      units.push_back(unit_of_key(schema, key));
+    const auto [csv, jsonl] = table_text(rows, plan.varied_keys, units, plan.has_names);
+    std::filesystem::create_directories(plan.results_folder);
+    report.csv_path   = (std::filesystem::path(plan.results_folder) / "results.csv").string();
+    report.jsonl_path = (std::filesystem::path(plan.results_folder) / "results.jsonl").string();
+    report::write_file_atomically(report.csv_path, csv);
+    report::write_file_atomically(report.jsonl_path, jsonl);
+    return report;
+  }
+} // namespace lentus::sweep

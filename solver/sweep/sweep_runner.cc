@@ -1,0 +1,526 @@
+#include "solver/sweep/sweep_runner.h"
+
+#include "solver/errors.h"
+#include "solver/flow/flow_run.h"
+#include "solver/input/case_file.h"
+#include "solver/input/flow_case.h"
+#include "solver/report/atomic_file.h"
+#include "solver/report/plotting.h"
+#include "solver/sweep/results_table.h"
+#include "solver/sweep/sweep_file.h"
+
+#include <algorithm>
+#include <chrono>
+#include <cstdio>
+#include <filesystem>
+#include <fstream>
+#include <iostream>
+#include <map>
+#include <memory>
+#include <sstream>
+
+#include <fcntl.h>
+#include <sys/file.h>
+#include <unistd.h>
+
+namespace lentus::sweep
+{
+  namespace
+  {
+    namespace fs = std::filesystem;
+
+    double seconds_now()
+    {
+      return std::chrono::duration<double>(std::chrono::steady_clock::now().time_since_epoch()).count();
+    }
+
+    const char *caution = "Results are estimates from a model: check them against measurements. They never replace "
+                          "pressure-relief devices, local pressure-equipment and machinery codes, or review by a "
+                          "licensed engineer.";
+
+    /// Sends this process's standard output to a file while it lives (the solver's
+    /// per-iteration lines would bury the progress lines; log.txt keeps them).
+    class OutputRedirect
+    {
+    public:
+      explicit OutputRedirect(const std::string &path)
+      {
+        std::fflush(stdout);
+        std::cout.flush();
+        const int file = ::open(path.c_str(), O_WRONLY | O_CREAT | O_TRUNC, 0644);
+        if (file < 0)
+          return;
+        saved = ::dup(1);
+        ::dup2(file, 1);
+        ::close(file);
+      }
+      ~OutputRedirect()
+      {
+        if (saved < 0)
+          return;
+        std::fflush(stdout);
+        std::cout.flush();
+        ::dup2(saved, 1);
+        ::close(saved);
+      }
+      OutputRedirect(const OutputRedirect &) = delete;
+      OutputRedirect &operator=(const OutputRedirect &) = delete;
+
+    private:
+      int saved = -1;
+    };
+
+    std::string claim_path(const SweepPlan &plan, const std::string &id)
+    {
+      return (fs::path(plan.results_folder) / "claims" / id).string();
+    }
+
+    std::string attempts_path(const SweepPlan &plan, const std::string &id)
+    {
+      return (fs::path(plan.results_folder) / "attempts" / id).string();
+    }
+
+    unsigned int attempts_of(const SweepPlan &plan, const std::string &id)
+    {
+      std::ifstream input(attempts_path(plan, id));
+      unsigned int  count = 0;
+      return input >> count ? count : 0;
+    }
+
+    /// Atomic on POSIX file systems, NFS v3 and later included.
+    bool try_claim(const SweepPlan &plan, const std::string &id)
+    {
+      const int file = ::open(claim_path(plan, id).c_str(), O_WRONLY | O_CREAT | O_EXCL, 0644);
+      if (file < 0)
+        return false;
+      const std::string owner = std::to_string(::getpid()) + "\n";
+      [[maybe_unused]] const auto written = ::write(file, owner.data(), owner.size());
+      ::close(file);
+      return true;
+    }
+
+    ResultRow start_row(const SweepPlan &plan, const SweepCase &sweep_case)
+    {
+      ResultRow row;
+      row.index       = sweep_case.index;
+      row.id          = sweep_case.id;
+      row.name        = sweep_case.name;
+      row.folder      = case_folder(plan, sweep_case);
+      row.fingerprint = sweep_case.fingerprint;
+      for (const Override &value : sweep_case.overrides)
+        if (std::find(plan.varied_keys.begin(), plan.varied_keys.end(), value.path) != plan.varied_keys.end())
+          row.values.emplace_back(value.path, value.value);
+      return row;
+    }
+
+    /// Solves one case on `group` (collective) and returns its row.
+    ResultRow solve_case(const SweepPlan &plan, const SweepCase &sweep_case, const input::CaseSchema &schema,
+                         const RunnerOptions &options, MPI_Comm group)
+    {
+      int rank = 0, size = 1;
+      MPI_Comm_rank(group, &rank);
+      MPI_Comm_size(group, &size);
+      ResultRow row = start_row(plan, sweep_case);
+      row.ranks     = static_cast<unsigned int>(size);
+      if (!sweep_case.invalid_reason.empty())
+        {
+          row.status = status::bad_input;
+          row.reason = sweep_case.invalid_reason;
+          return row;
+        }
+      const double start = seconds_now();
+      try
+        {
+          std::unique_ptr<OutputRedirect> quiet;
+          if (!options.solver_output)
+            quiet = std::make_unique<OutputRedirect>(
+              rank == 0 ? (fs::path(plan.results_folder) / "output" / (sweep_case.id + ".txt")).string() : "/dev/null");
+          const input::CaseFile file =
+            input::CaseFile::parse(plan.base_text, plan.base_case, schema, case_overrides(plan, sweep_case));
+          const input::FlowCase flow   = input::read_flow_case(file);
+          const flow::RunResult result = flow::run_flow_case(flow, group);
+          row.status            = result.converged ? status::converged : status::not_converged;
+          row.reason            = result.reason;
+          row.newton_iterations = result.newton_iterations;
+          for (const flow::DesignNumber &number : result.numbers)
+            row.numbers.push_back({number.name, number.value, number.unit});
+        }
+      catch (const InputError &error)
+        {
+          row.status = status::bad_input;
+          row.reason = error.what();
+        }
+      catch (const NoConvergence &error)
+        {
+          row.status = status::not_converged;
+          row.reason = error.what();
+        }
+      catch (const std::exception &error)
+        {
+          row.status = status::crashed;
+          row.reason = error.what();
+        }
+      row.wall_time = seconds_now() - start;
+      return row;
+    }
+
+    /// What a leader knows about finished cases, for progress lines.
+    class Progress
+    {
+    public:
+      Progress(const SweepPlan &plan_, unsigned int groups_)
+        : plan(plan_)
+        , groups(groups_)
+      {
+        for (const SweepCase &sweep_case : plan.cases)
+          fingerprints[sweep_case.id] = sweep_case.fingerprint;
+      }
+
+      /// Reads row files not seen before.
+      void update()
+      {
+        std::error_code error;
+        for (const auto &entry : fs::directory_iterator(fs::path(plan.results_folder) / "rows", error))
+          {
+            const std::string file = entry.path().filename().string();
+            if (file.size() < 5 || file.compare(file.size() - 4, 4, ".txt") != 0)
+              continue;
+            const std::string id    = file.substr(0, file.size() - 4);
+            const auto        known = fingerprints.find(id);
+            if (known == fingerprints.end() || seen.count(id))
+              continue;
+            ResultRow row;
+            if (!read_row(plan.results_folder, id, known->second, row))
+              continue;
+            seen[id] = row.status;
+            if (row.status != status::converged)
+              ++failures;
+            if (row.status != status::bad_input && row.wall_time > 0.)
+              {
+                solved_seconds += row.wall_time;
+                ++solved;
+              }
+          }
+      }
+
+      std::size_t done() const { return seen.size(); }
+
+      std::string line(const ResultRow &row)
+      {
+        update();
+        const std::size_t total = plan.cases.size();
+        char              head[64];
+        std::snprintf(head, sizeof head, "[%*zu/%zu] ", static_cast<int>(std::to_string(total).size()), done(), total);
+        std::ostringstream text;
+        text << head << row.id << (row.name.empty() ? "" : " (" + row.name + ")") << ": " << row.status;
+        char figures[80];
+        std::snprintf(figures, sizeof figures, " in %.2f s, %u Newton", row.wall_time, row.newton_iterations);
+        if (row.status != status::bad_input)
+          text << figures;
+        text << " | failures " << failures;
+        if (solved > 0 && done() < total)
+          {
+            const double left = (total - done()) * solved_seconds / solved / groups;
+            char         estimate[40];
+            if (left < 120.)
+              std::snprintf(estimate, sizeof estimate, "%.0f s", left);
+            else if (left < 7200.)
+              std::snprintf(estimate, sizeof estimate, "%.1f min", left / 60.);
+            else
+              std::snprintf(estimate, sizeof estimate, "%.1f h", left / 3600.);
+            text << " | about " << estimate << " left";
+          }
+        if (row.status != status::converged && !row.reason.empty())
+          text << "\n    " << row.reason;
+        return text.str();
+      }
+
+    private:
+      const SweepPlan                      &plan;
+      unsigned int                          groups;
+      std::map<std::string, std::uint64_t> fingerprints;
+      std::map<std::string, std::string>   seen;
+      std::size_t                          failures = 0, solved = 0;
+      double                               solved_seconds = 0.;
+    };
+
+    void print_line(const std::string &text)
+    {
+      std::printf("%s\n", text.c_str());
+      std::fflush(stdout);
+    }
+
+    /// Rank 0 prepares the folder; every rank learns whether that worked.
+    void prepare_folder(const SweepPlan &plan, const RunnerOptions &options, MPI_Comm world, int &lock_file,
+                        std::size_t &done_before, std::size_t &retried)
+    {
+      int rank = 0;
+      MPI_Comm_rank(world, &rank);
+      std::string problem;
+      unsigned long counts[2] = {0, 0};
+      if (rank == 0)
+        try
+          {
+            const fs::path folder(plan.results_folder);
+            if (fs::exists(folder) && !fs::is_directory(folder))
+              throw InputError("results folder = " + plan.results_folder +
+                               ": exists and is not a folder; allowed: a new folder or one an earlier sweep wrote");
+            // Refuse a folder holding anything a sweep does not write (it may be someone's data).
+            if (fs::exists(folder))
+              for (const auto &entry : fs::directory_iterator(folder))
+                {
+                  const std::string name = entry.path().filename().string();
+                  if (name[0] != '.' && name != "plan.txt" && name != "cases" && name != "rows" && name != "claims" &&
+                      name != "attempts" && name != "output" && name != "runner.lock" && name != "results.csv" &&
+                      name != "results.jsonl" && name != "plot.png")
+                    throw InputError("results folder = " + plan.results_folder + ": holds " + name +
+                                     ", which a sweep does not write; allowed: a new folder, or one an earlier "
+                                     "sweep wrote");
+                }
+            for (const char *sub : {"cases", "rows", "claims", "attempts", "output"})
+              fs::create_directories(folder / sub);
+            if (!options.case_index)
+              {
+                lock_file = ::open((folder / "runner.lock").c_str(), O_RDWR | O_CREAT, 0644);
+                if (lock_file < 0 || ::flock(lock_file, LOCK_EX | LOCK_NB) != 0)
+                  throw InputError("results folder = " + plan.results_folder +
+                                   ": another sweep runner is working in it (runner.lock is held); allowed: wait "
+                                   "for it to finish, or choose another folder with --output");
+                // Half-written files of a run that died: temporary files and partial case folders.
+                for (const fs::path &place : {folder, folder / "rows", folder / "attempts", folder / "cases"})
+                  for (const auto &entry : fs::directory_iterator(place))
+                    {
+                      const std::string name = entry.path().filename().string();
+                      if (name.find(".tmp-") != std::string::npos ||
+                          (name.size() > 8 && name.compare(name.size() - 8, 8, ".partial") == 0))
+                        fs::remove_all(entry.path());
+                    }
+                // Claims left now belong to runs that died: count the attempt and free the case.
+                for (const auto &entry : fs::directory_iterator(folder / "claims"))
+                  {
+                    const std::string id = entry.path().filename().string();
+                    fs::remove(entry.path());
+                    for (const SweepCase &sweep_case : plan.cases)
+                      if (sweep_case.id == id)
+                        {
+                          ResultRow row;
+                          if (!read_row(plan.results_folder, id, sweep_case.fingerprint, row))
+                            {
+                              report::write_file_atomically(attempts_path(plan, id),
+                                                            std::to_string(attempts_of(plan, id) + 1) + "\n");
+                              ++counts[1];
+                            }
+                        }
+                  }
+              }
+            if (!options.case_index || !fs::exists(folder / "plan.txt"))
+              report::write_file_atomically((folder / "plan.txt").string(), plan.plan_text());
+            for (const SweepCase &sweep_case : plan.cases)
+              {
+                ResultRow row;
+                counts[0] += read_row(plan.results_folder, sweep_case.id, sweep_case.fingerprint, row);
+              }
+          }
+        catch (const std::exception &error)
+          {
+            problem = error.what();
+            if (!dynamic_cast<const InputError *>(&error))
+              problem = "!" + problem;
+          }
+      unsigned long length = problem.size();
+      MPI_Bcast(&length, 1, MPI_UNSIGNED_LONG, 0, world);
+      problem.resize(length);
+      MPI_Bcast(problem.data(), static_cast<int>(length), MPI_CHAR, 0, world);
+      MPI_Bcast(counts, 2, MPI_UNSIGNED_LONG, 0, world);
+      if (!problem.empty())
+        {
+          if (problem[0] == '!')
+            throw std::runtime_error(problem.substr(1));
+          throw InputError(problem);
+        }
+      done_before = counts[0];
+      retried     = counts[1];
+    }
+
+    int array_case(const SweepPlan &plan, const input::CaseSchema &schema, const RunnerOptions &options,
+                   MPI_Comm world)
+    {
+      int rank = 0;
+      MPI_Comm_rank(world, &rank);
+      const std::size_t index = *options.case_index;
+      if (index >= plan.cases.size())
+        throw InputError("command line", 0,
+                         "--case-index = " + std::to_string(index) + ": no such case; allowed: 0 to " +
+                           std::to_string(plan.cases.size() - 1) + " (the sweep has " +
+                           std::to_string(plan.cases.size()) + " cases)");
+      int         lock_file = -1;
+      std::size_t done_before = 0, retried = 0;
+      prepare_folder(plan, options, world, lock_file, done_before, retried);
+      const SweepCase &sweep_case = plan.cases[index];
+      int              already    = 0;
+      ResultRow        row;
+      if (rank == 0)
+        already = read_row(plan.results_folder, sweep_case.id, sweep_case.fingerprint, row);
+      MPI_Bcast(&already, 1, MPI_INT, 0, world);
+      if (already)
+        {
+          if (rank == 0)
+            print_line(sweep_case.id + ": done earlier (" + row.status + "); nothing to do");
+          return exit_code::success;
+        }
+      row = solve_case(plan, sweep_case, schema, options, world);
+      if (rank == 0)
+        {
+          write_row(plan.results_folder, row);
+          Progress progress(plan, 1);
+          print_line(progress.line(row));
+        }
+      return row.status == status::converged     ? exit_code::success :
+             row.status == status::not_converged ? exit_code::no_convergence :
+             row.status == status::bad_input     ? exit_code::bad_input :
+                                                   exit_code::failure;
+    }
+  } // namespace
+
+  int collect_and_report(const SweepPlan &plan, const input::CaseSchema &schema)
+  {
+    const CollectReport report = collect_results(plan, schema);
+    std::string         counts;
+    for (const auto &[name, count] : report.by_status)
+      counts += (counts.empty() ? "" : ", ") + std::to_string(count) + " " + name;
+    print_line("Table: " + report.csv_path + " and " + report.jsonl_path + " (" + std::to_string(report.rows) +
+               " of " + std::to_string(plan.cases.size()) + " cases" + (counts.empty() ? "" : ": " + counts) + ")");
+    if (!report.missing.empty())
+      {
+        std::string list;
+        for (std::size_t i = 0; i < report.missing.size() && i < 20; ++i)
+          list += (i ? ", " : "") + report.missing[i];
+        if (report.missing.size() > 20)
+          list += ", ...";
+        print_line("Missing " + std::to_string(report.missing.size()) + " case(s) without a result: " + list +
+                   " (run them with lentus sweep, or --case-index I)");
+      }
+    if (!plan.plot_number.empty() && report.rows > 0)
+      {
+        const std::string picture = (fs::path(plan.results_folder) / "plot.png").string();
+        if (!report::plotting_available())
+          print_line("No plot: " + report::plotting_install_hint());
+        else
+          {
+            std::vector<std::string> arguments = {report.csv_path, "--number", plan.plot_number,
+                                                  "--against",     plan.plot_against, "--output", picture};
+            if (!plan.plot_curves.empty())
+              arguments.insert(arguments.end(), {"--curves", plan.plot_curves});
+            if (report::run_script("plot_sweep.py", arguments) == 0)
+              print_line("Plot: " + picture);
+            else
+              print_line("No plot: scripts/plot_sweep.py failed (see above)");
+          }
+      }
+    print_line(std::string("Caution: ") + caution);
+    return report.missing.empty() ? exit_code::success : exit_code::failure;
+  }
+
+  int run_sweep(const SweepPlan &plan, const input::CaseSchema &schema, const RunnerOptions &options, MPI_Comm world)
+  {
+    int rank = 0, size = 1;
+    MPI_Comm_rank(world, &rank);
+    MPI_Comm_size(world, &size);
+    if (options.case_index)
+      return array_case(plan, schema, options, world);
+
+    const unsigned int k = options.ranks_per_case;
+    if (k == 0 || static_cast<unsigned int>(size) % k != 0)
+      throw InputError("command line", 0,
+                       "--ranks-per-case = " + std::to_string(k) + ": does not divide the " + std::to_string(size) +
+                         " MPI ranks; allowed: a divisor of the rank count (mpirun -np P with P = k x groups)");
+    const unsigned int groups = static_cast<unsigned int>(size) / k;
+
+    int         lock_file   = -1;
+    std::size_t done_before = 0, retried = 0;
+    prepare_folder(plan, options, world, lock_file, done_before, retried);
+    if (rank == 0)
+      {
+        std::ostringstream head;
+        head << "Sweep " << plan.sweep_file << ": " << plan.cases.size() << " cases (" << plan.shape_description()
+             << ") of base case " << plan.base_case << "; " << groups << " group(s) of " << k << " rank(s); results in "
+             << plan.results_folder;
+        if (done_before > 0)
+          head << "\nResuming: " << done_before << " case(s) done earlier are kept";
+        if (retried > 0)
+          head << "; " << retried << " case(s) a stopped run was solving are run again";
+        if (plan.n_invalid() > 0)
+          {
+            head << "\n" << plan.n_invalid() << " case(s) are invalid and are recorded as bad input without solving:";
+            for (const SweepCase &sweep_case : plan.cases)
+              if (!sweep_case.invalid_reason.empty())
+                head << "\n    " << sweep_case.invalid_reason;
+          }
+        print_line(head.str());
+      }
+
+    MPI_Comm group;
+    MPI_Comm_split(world, rank / static_cast<int>(k), rank, &group);
+    int group_rank = 0;
+    MPI_Comm_rank(group, &group_rank);
+    const bool leader = group_rank == 0;
+
+    Progress    progress(plan, groups);
+    std::size_t cursor = 0;
+    while (true)
+      {
+        // [case index or -1, 1 = record as crashed without solving]
+        long next[2] = {-1, 0};
+        if (leader)
+          for (; cursor < plan.cases.size(); ++cursor)
+            {
+              const SweepCase &candidate = plan.cases[cursor];
+              ResultRow        row;
+              if (read_row(plan.results_folder, candidate.id, candidate.fingerprint, row) ||
+                  !try_claim(plan, candidate.id))
+                continue;
+              // Another group may have finished it between the look and the claim.
+              if (read_row(plan.results_folder, candidate.id, candidate.fingerprint, row))
+                {
+                  fs::remove(claim_path(plan, candidate.id));
+                  continue;
+                }
+              next[0] = static_cast<long>(cursor);
+              next[1] = attempts_of(plan, candidate.id) >= options.max_attempts;
+              ++cursor;
+              break;
+            }
+        MPI_Bcast(next, 2, MPI_LONG, 0, group);
+        if (next[0] < 0)
+          break;
+        const SweepCase &sweep_case = plan.cases[static_cast<std::size_t>(next[0])];
+        ResultRow        row;
+        if (next[1])
+          {
+            row        = start_row(plan, sweep_case);
+            row.ranks  = k;
+            row.status = status::crashed;
+            row.reason = "a sweep runner stopped while solving this case " +
+                         std::to_string(attempts_of(plan, sweep_case.id)) +
+                         " times (killed, or it crashed the process); not tried again";
+          }
+        else
+          row = solve_case(plan, sweep_case, schema, options, group);
+        if (leader)
+          {
+            write_row(plan.results_folder, row);
+            fs::remove(claim_path(plan, sweep_case.id));
+            print_line(progress.line(row));
+          }
+      }
+    MPI_Comm_free(&group);
+    MPI_Barrier(world);
+    int code = exit_code::success;
+    if (rank == 0)
+      code = collect_and_report(plan, schema);
+    MPI_Bcast(&code, 1, MPI_INT, 0, world);
+    if (lock_file >= 0)
+      ::close(lock_file);
+    return code;
+  }
+} // namespace lentus::sweep

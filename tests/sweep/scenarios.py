@@ -1,0 +1,215 @@
+#!/usr/bin/env python3
+"""Behaviour of `lentus sweep` and `lentus collect` that needs several runs.
+
+usage: scenarios.py SCENARIO LENTUS MPIEXEC WORKDIR
+  ranks    the 6-case sweep on 1 rank and on 2 ranks gives identical tables
+  failures a sweep with an invalid and a non-converging case completes the others
+  resume   a sweep killed with SIGKILL after some cases resumes; every case once
+  resume2  the same on 2 ranks (the whole process group is killed)
+  array    --case-index (and SLURM_ARRAY_TASK_ID) then collect gives the runner's table
+Exits 1 with a message on the first failed check.
+"""
+import csv
+import os
+import shutil
+import signal
+import subprocess
+import sys
+import time
+
+HERE = os.path.dirname(os.path.abspath(__file__))
+MPI_FLAGS = ["--allow-run-as-root", "--oversubscribe"]
+
+
+def fail(message):
+    sys.stderr.write("FAILED: " + message + "\n")
+    sys.exit(1)
+
+
+def check(condition, message):
+    if not condition:
+        fail(message)
+
+
+def run(command, expect=0, env=None):
+    finished = subprocess.run(command, stdout=subprocess.PIPE, stderr=subprocess.PIPE, text=True, env=env)
+    sys.stdout.write("$ " + " ".join(command) + "\n" + finished.stdout + finished.stderr)
+    if expect is not None and finished.returncode != expect:
+        fail(f"exit code {finished.returncode}, expected {expect}: {' '.join(command)}")
+    return finished
+
+
+def table(folder):
+    with open(os.path.join(folder, "results.csv"), newline="") as handle:
+        rows = list(csv.reader(handle))
+    return rows[0], rows[1:]
+
+
+def without_time(header, rows):
+    """The table without the columns that differ between runs (wall time) or by design (folder, ranks)."""
+    dropped = {header.index(name) for name in ("wall time [s]", "folder") if name in header}
+    return [[cell for i, cell in enumerate(row) if i not in dropped] for row in [header] + rows]
+
+
+def each_case_once(folder, total):
+    header, rows = table(folder)
+    ids = [row[0] for row in rows]
+    check(len(ids) == total, f"{len(ids)} rows in {folder}/results.csv, expected {total}")
+    check(len(set(ids)) == total, f"a case appears twice: {ids}")
+    with open(os.path.join(folder, "results.jsonl")) as handle:
+        lines = handle.read().splitlines()
+    check(len(lines) == total, f"{len(lines)} JSON lines, expected {total}")
+    leftovers = [os.path.join(root, name) for root, dirs, files in os.walk(folder) for name in dirs + files
+                 if ".partial" in name or ".tmp-" in name]
+    check(not leftovers, f"half-written files left: {leftovers}")
+    check(not os.listdir(os.path.join(folder, "claims")), "claims left after the sweep finished")
+    return header, rows
+
+
+def scenario_ranks(lentus, mpiexec, work):
+    sweep = os.path.join(HERE, "six_cases.sweep")
+    one, two = os.path.join(work, "one"), os.path.join(work, "two")
+    out = run([lentus, "sweep", sweep, "--output", one]).stdout
+    check("6 cases (3 x 2 grid)" in out, "the number of cases is not printed first")
+    check("[6/6]" in out and "failures 0" in out, "no progress lines with done/total and failures")
+    run([mpiexec] + MPI_FLAGS + ["-np", "2", lentus, "sweep", sweep, "--output", two])
+    h1, r1 = each_case_once(one, 6)
+    h2, r2 = each_case_once(two, 6)
+    check(all(row[h1.index("status")] == "converged" for row in r1), "not every case converged")
+    check("flow rate out through outlet [m^3/s]" in h1, f"design numbers with units missing from {h1}")
+    check("Boundary conditions/Pressure values [Pa]" in h1, f"varied key with unit missing from {h1}")
+    check(without_time(h1, r1) == without_time(h2, r2), "tables on 1 and 2 ranks differ")
+    # A larger pressure drop drives more flow through the same pipe (monotone in the drop).
+    q = {(row[1], row[2]): float(row[h1.index("flow rate out through outlet [m^3/s]")]) for row in r1}
+    for n in ("0.4", "0.7"):
+        check(q[("100, 0", n)] < q[("200, 0", n)] < q[("400, 0", n)], f"flow rate not increasing with pressure, n={n}")
+
+
+def scenario_failures(lentus, mpiexec, work):
+    sweep = os.path.join(HERE, "with_failures.sweep")
+    folder = os.path.join(work, "out")
+    finished = run([lentus, "sweep", sweep, "--output", folder])
+    check("1 case(s) are invalid" in finished.stdout, "the invalid case is not announced before running")
+    check("with_failures.sweep:10: case-0001 (impossible): Boundary conditions/Pressure values = 200, 0, 5: "
+          "more values than roles under Pressure" in finished.stdout,
+          "the invalid case's message lacks file, line and key")
+    header, rows = each_case_once(folder, 4)
+    status = {row[1]: row[header.index("status")] for row in rows}
+    check(status == {"thin": "converged", "impossible": "bad input", "starved": "not converged", "thick": "converged"},
+          f"statuses: {status}")
+    reason = {row[1]: row[header.index("reason")] for row in rows}
+    check("more values than roles" in reason["impossible"], "no reason recorded for the bad case")
+    check(reason["starved"] != "", "no reason recorded for the case that did not converge")
+    check(os.path.exists(os.path.join(folder, "cases", "case-0003", "summary.json")),
+          "the case after the failures was not solved")
+    # check refuses the same file: the invalid case with file, line and key, exit code 2.
+    finished = run([lentus, "check", sweep], expect=2)
+    check("with_failures.sweep:10: case-0001 (impossible): Boundary conditions/Pressure values" in finished.stderr,
+          "check does not point at the invalid case")
+
+
+def wait_for_rows(folder, count, process, timeout=60):
+    rows = os.path.join(folder, "rows")
+    start = time.time()
+    while time.time() - start < timeout:
+        if os.path.isdir(rows) and len([f for f in os.listdir(rows) if f.endswith(".txt")]) >= count:
+            return
+        if process.poll() is not None:
+            fail("the sweep ended before it could be killed")
+        time.sleep(0.01)
+    fail("no rows appeared")
+
+
+def descendants(pid):
+    """Every process below `pid`, from /proc."""
+    children = {}
+    for entry in os.listdir("/proc"):
+        if entry.isdigit():
+            try:
+                with open(f"/proc/{entry}/stat") as handle:
+                    fields = handle.read().rsplit(")", 1)[1].split()
+                children.setdefault(int(fields[1]), []).append(int(entry))
+            except (OSError, IndexError):
+                pass
+    found, queue = [], [pid]
+    while queue:
+        for child in children.get(queue.pop(), []):
+            found.append(child)
+            queue.append(child)
+    return found
+
+
+def scenario_resume(lentus, mpiexec, work, ranks=1):
+    sweep = os.path.join(HERE, "eight_cases.sweep")
+    folder = os.path.join(work, "out")
+    command = [lentus, "sweep", sweep, "--output", folder]
+    if ranks > 1:
+        command = [mpiexec] + MPI_FLAGS + ["-np", str(ranks)] + command
+    process = subprocess.Popen(command, stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL, start_new_session=True)
+    wait_for_rows(folder, 3, process)
+    # The runner and every rank, without warning (MPI ranks may sit in process groups of their own).
+    for pid in [process.pid] + descendants(process.pid):
+        try:
+            os.kill(pid, signal.SIGKILL)
+        except ProcessLookupError:
+            pass
+    process.wait()
+    time.sleep(0.2)
+    rows_folder = os.path.join(folder, "rows")
+    kept = {name: open(os.path.join(rows_folder, name)).read() for name in os.listdir(rows_folder)
+            if name.endswith(".txt")}
+    check(3 <= len(kept) < 8, f"{len(kept)} rows after the kill; the test needs a sweep stopped half-way")
+    finished = run(command)
+    check(f"Resuming: {len(kept)} case(s) done earlier are kept" in finished.stdout, "no resume message")
+    header, rows = each_case_once(folder, 8)
+    check(all(row[header.index("status")] == "converged" for row in rows), "not every case converged")
+    for name, text in kept.items():
+        check(open(os.path.join(rows_folder, name)).read() == text, f"{name} was solved again")
+    # Started once more: nothing is left to do and nothing changes.
+    finished = run(command)
+    check("Resuming: 8 case(s) done earlier are kept" in finished.stdout, "a finished sweep ran cases again")
+
+
+def scenario_array(lentus, mpiexec, work):
+    sweep = os.path.join(HERE, "six_cases.sweep")
+    runner, array = os.path.join(work, "runner"), os.path.join(work, "array")
+    run([lentus, "sweep", sweep, "--output", runner])
+    check(run([lentus, "sweep", sweep, "--count"]).stdout.strip() == "6", "--count does not print 6")
+    for index in range(5):
+        run([lentus, "sweep", sweep, "--output", array, "--case-index", str(index)])
+    finished = run([lentus, "collect", sweep, "--output", array], expect=1)
+    check("Missing 1 case(s) without a result: case-0005" in finished.stdout, "collect does not list the missing case")
+    environment = dict(os.environ, SLURM_ARRAY_TASK_ID="5")
+    run([lentus, "sweep", sweep, "--output", array], env=environment)
+    finished = run([lentus, "sweep", sweep, "--output", array, "--case-index", "5"])
+    check("done earlier" in finished.stdout, "an array task solved a finished case again")
+    run([lentus, "sweep", sweep, "--output", array, "--case-index", "6"], expect=2)
+    run([lentus, "collect", sweep, "--output", array])
+    h1, r1 = each_case_once(runner, 6)
+    h2, r2 = each_case_once(array, 6)
+    check(without_time(h1, r1) == without_time(h2, r2), "array tasks and the runner give different tables")
+
+
+def main():
+    if len(sys.argv) != 5:
+        fail(__doc__)
+    scenario, lentus, mpiexec, work = sys.argv[1:]
+    shutil.rmtree(work, ignore_errors=True)
+    os.makedirs(work)
+    if scenario == "ranks":
+        scenario_ranks(lentus, mpiexec, work)
+    elif scenario == "failures":
+        scenario_failures(lentus, mpiexec, work)
+    elif scenario == "resume":
+        scenario_resume(lentus, mpiexec, work)
+    elif scenario == "resume2":
+        scenario_resume(lentus, mpiexec, work, ranks=2)
+    elif scenario == "array":
+        scenario_array(lentus, mpiexec, work)
+    else:
+        fail("unknown scenario " + scenario)
+    print("passed: " + scenario)
+
+
+if __name__ == "__main__":
+    main()

@@ -1,0 +1,199 @@
+// Sweep files: expansion into cases, ranges, the explicit case list of `lentus fit`,
+// tables, messages with file, line and key; row files and the results table.
+#include "solver/errors.h"
+#include "solver/input/case_schema.h"
+#include "solver/sweep/results_table.h"
+#include "solver/sweep/sweep_file.h"
+
+#include <gmock/gmock.h>
+#include <gtest/gtest.h>
+
+#include <filesystem>
+#include <fstream>
+
+namespace
+{
+  using namespace lentus;
+  using ::testing::HasSubstr;
+
+  const std::string base_case = std::string(LENTUS_SOURCE_DIR) + "/tests/verification/cases/carreau_pipe.prm";
+
+  sweep::SweepPlan parse(const std::string &text, const std::vector<std::string> &sets = {})
+  {
+    sweep::SweepSettings settings;
+    settings.sets = sets;
+    return sweep::parse_sweep_file("base case = " + base_case + "\n" + text, "test.sweep", settings,
+                                   input::case_schema());
+  }
+
+  std::string error_of(const std::string &text)
+  {
+    try
+      {
+        parse(text);
+      }
+    catch (const InputError &error)
+      {
+        return error.what();
+      }
+    return "(no error)";
+  }
+
+  std::string value_of(const sweep::SweepCase &sweep_case, const std::string &path)
+  {
+    for (const sweep::Override &value : sweep_case.overrides)
+      if (value.path == path)
+        return value.value;
+    return "(not set)";
+  }
+
+  const std::string n_key = "Rheology/Carreau-Yasuda/Flow index";
+  const std::string p_key = "Boundary conditions/Pressure values";
+
+  TEST(SweepFile, GridNestsDimensionsInFileOrder)
+  {
+    const auto plan = parse("vary " + p_key + " = 100, 0; 200, 0; 300, 0\nvary " + n_key + " = 0.4, 0.6\n");
+    ASSERT_EQ(plan.cases.size(), 6u);
+    EXPECT_EQ(plan.shape_description(), "3 x 2 grid");
+    EXPECT_EQ(plan.cases[0].id, "case-0000");
+    EXPECT_EQ(value_of(plan.cases[1], p_key), "100, 0");
+    EXPECT_EQ(value_of(plan.cases[1], n_key), "0.6");
+    EXPECT_EQ(value_of(plan.cases[2], p_key), "200, 0");
+    EXPECT_EQ(value_of(plan.cases[5], p_key), "300, 0");
+    EXPECT_EQ(plan.varied_keys, (std::vector<std::string>{p_key, n_key}));
+    EXPECT_EQ(plan.n_invalid(), 0u);
+    EXPECT_EQ(plan.results_folder, "out/test");
+  }
+
+  TEST(SweepFile, ZipTakesTheIthValuesTogether)
+  {
+    const auto plan = parse("combine = zip\nvary " + n_key + " = 0.4, 0.5, 0.6\nvary " + p_key +
+                            " = 100, 0; 200, 0; 300, 0\n");
+    ASSERT_EQ(plan.cases.size(), 3u);
+    EXPECT_EQ(value_of(plan.cases[2], n_key), "0.6");
+    EXPECT_EQ(value_of(plan.cases[2], p_key), "300, 0");
+    EXPECT_THAT(error_of("combine = zip\nvary " + n_key + " = 0.4, 0.5\nvary " + p_key + " = 1, 0; 2, 0; 3, 0\n"),
+                HasSubstr("test.sweep:4: " + p_key + ": 3 values, but " + n_key + " (line 3) has 2"));
+  }
+
+  TEST(SweepFile, LinearAndLogarithmicRanges)
+  {
+    const auto plan = parse("vary " + n_key + " = linear 0.3 to 0.9, 4 values\n"
+                            "vary Geometry/Pipe/Radius = logarithmic 0.01 to 1, 3 values\n");
+    ASSERT_EQ(plan.cases.size(), 12u);
+    // linear: 0.3, 0.5, 0.7, 0.9; logarithmic: 0.01, 0.1, 1
+    EXPECT_EQ(value_of(plan.cases[3], n_key), "0.5");
+    EXPECT_EQ(value_of(plan.cases[11], n_key), "0.9");
+    EXPECT_EQ(value_of(plan.cases[0], "Geometry/Pipe/Radius"), "0.01");
+    EXPECT_EQ(value_of(plan.cases[1], "Geometry/Pipe/Radius"), "0.1");
+    EXPECT_EQ(value_of(plan.cases[2], "Geometry/Pipe/Radius"), "1");
+  }
+
+  TEST(SweepFile, ExplicitCaseListOfFitIsAccepted)
+  {
+    // The format `lentus fit` writes (rheology/fit/sweep_file.h), with a base case given.
+    const auto plan = parse("# Lentus sweep file, format 1\ncase fitted\n  " + n_key +
+                            " = 0.4\n  Rheology/Carreau-Yasuda/Time constant = 2\nend\n"
+                            "case sample-001\n  " + n_key + " = 0.45\n  Rheology/Carreau-Yasuda/Time constant = 1.5\nend\n");
+    ASSERT_EQ(plan.cases.size(), 2u);
+    EXPECT_TRUE(plan.has_names);
+    EXPECT_EQ(plan.cases[1].name, "sample-001");
+    EXPECT_EQ(value_of(plan.cases[1], "Rheology/Carreau-Yasuda/Time constant"), "1.5");
+    EXPECT_TRUE(sweep::looks_like_sweep_file("# comment\ncase fitted\n"));
+    EXPECT_TRUE(sweep::looks_like_sweep_file("base case = a.prm\n"));
+    EXPECT_FALSE(sweep::looks_like_sweep_file("subsection Rheology\nend\n"));
+  }
+
+  TEST(SweepFile, CaseListIsOneDimensionOfTheGrid)
+  {
+    const auto plan = parse("case a\n  " + n_key + " = 0.4\nend\ncase b\n  " + n_key + " = 0.6\nend\nvary " + p_key +
+                            " = 100, 0; 200, 0; 300, 0\n");
+    ASSERT_EQ(plan.cases.size(), 6u);
+    EXPECT_EQ(plan.cases[4].name, "b");
+    EXPECT_EQ(value_of(plan.cases[4], p_key), "200, 0");
+  }
+
+  TEST(SweepFile, FixedValuesAndCommandLineSetsReachEveryCase)
+  {
+    const auto plan = parse("vary " + n_key + " = 0.4, 0.6\nfix Geometry/Refinement = 1\n", {"Output/Write fields=false"});
+    for (const auto &sweep_case : plan.cases)
+      {
+        EXPECT_EQ(value_of(sweep_case, "Geometry/Refinement"), "1");
+        EXPECT_EQ(value_of(sweep_case, "Output/Write fields"), "false");
+      }
+    EXPECT_NE(plan.cases[0].fingerprint, plan.cases[1].fingerprint);
+    EXPECT_EQ(plan.cases[0].fingerprint, parse("vary " + n_key + " = 0.4, 0.7\nfix Geometry/Refinement = 1\n",
+                                               {"Output/Write fields=false"}).cases[0].fingerprint);
+  }
+
+  TEST(SweepFile, MistakesNameFileLineAndKey)
+  {
+    EXPECT_THAT(error_of("vary Rheology/Carreau-Yasuda/Flow indx = 0.4\n"),
+                HasSubstr("test.sweep:2: Rheology/Carreau-Yasuda/Flow indx: unknown key (did you mean '" + n_key + "'?)"));
+    EXPECT_THAT(error_of("vary " + n_key + " = 0.4, -1\n"),
+                HasSubstr("test.sweep:2: " + n_key + " = -1: out of range; allowed:"));
+    EXPECT_THAT(error_of("vary " + n_key + " = linear 0.3 to 0.9\n"),
+                HasSubstr("test.sweep:2: " + n_key + " = linear 0.3 to 0.9: cannot read the range"));
+    EXPECT_THAT(error_of("vary Geometry/Pipe/Radius = logarithmic 0 to 1, 3 values\n"),
+                HasSubstr("test.sweep:2: Geometry/Pipe/Radius = logarithmic 0 to 1, 3 values: a logarithmic range "
+                          "needs FROM and TO above 0"));
+    EXPECT_THAT(error_of("vary " + n_key + " = 0.4\nfix " + n_key + " = 0.5\n"),
+                HasSubstr("test.sweep:3: " + n_key + ": already set by the sweep in test.sweep:2"));
+    EXPECT_THAT(error_of("combine = diagonal\nvary " + n_key + " = 0.4\n"),
+                HasSubstr("test.sweep:2: combine = diagonal: unknown combination; allowed: grid"));
+    EXPECT_THAT(error_of("vary Output/Folder = a, b\n"), HasSubstr("test.sweep:2: Output/Folder: set by the sweep runner"));
+    EXPECT_THAT(error_of("sweep " + n_key + " = 0.4\n"), HasSubstr("test.sweep:2: cannot read 'sweep"));
+    EXPECT_THAT(error_of("case a\n  " + n_key + " = 0.4\n"), HasSubstr("test.sweep:2: case a is not closed by 'end'"));
+    EXPECT_THAT(error_of("fix Geometry/Refinement = 1\n"), HasSubstr("test.sweep: nothing varies"));
+    EXPECT_THAT(error_of("vary " + n_key + " = 0.4\nplot = maximum speed\nplot against = Geometry/Pipe/Radius\n"),
+                HasSubstr("test.sweep:4: plot against = Geometry/Pipe/Radius: not a varied key; allowed: " + n_key));
+  }
+
+  TEST(SweepFile, CaseThatTheFlowReaderRejectsIsKeptWithItsLine)
+  {
+    const auto plan = parse("vary " + p_key + " = 100, 0; 100, 0, 7\n");
+    ASSERT_EQ(plan.cases.size(), 2u);
+    EXPECT_EQ(plan.n_invalid(), 1u);
+    EXPECT_EQ(plan.cases[0].invalid_reason, "");
+    EXPECT_THAT(plan.cases[1].invalid_reason,
+                HasSubstr("test.sweep:2: case-0001: " + p_key + " = 100, 0, 7: more values than roles under Pressure"));
+  }
+
+  TEST(ResultsTable, RowFilesRoundTripAndIncompleteOnesAreRejected)
+  {
+    sweep::ResultRow row;
+    row.index       = 3;
+    row.id          = "case-0003";
+    row.name        = "a\tb";
+    row.fingerprint = 0xfedcba9876543210ull;
+    row.values      = {{p_key, "100, 0"}};
+    row.status      = sweep::status::not_converged;
+    row.reason      = "line one\nline two";
+    row.numbers     = {{"pressure drop inlet to outlet", 1234.5678901234567, "Pa"}};
+    row.wall_time   = 1.5;
+    const std::string text = sweep::row_text(row);
+    sweep::ResultRow  back;
+    ASSERT_TRUE(sweep::parse_row(text, back));
+    EXPECT_EQ(back.name, row.name);
+    EXPECT_EQ(back.reason, row.reason);
+    EXPECT_EQ(back.fingerprint, row.fingerprint);
+    EXPECT_EQ(back.numbers[0].value, row.numbers[0].value);
+    EXPECT_FALSE(sweep::parse_row(text.substr(0, text.size() - 4), back)); // no final "end"
+  }
+
+  TEST(ResultsTable, HeaderCarriesUnitsAndCellsAreQuoted)
+  {
+    sweep::ResultRow row;
+    row.id      = "case-0000";
+    row.values  = {{p_key, "100, 0"}};
+    row.status  = sweep::status::converged;
+    row.numbers = {{"maximum speed", 0.25, "m/s"}};
+    const auto [csv, jsonl] = sweep::table_text({row}, {p_key}, {"Pa"}, false);
+    EXPECT_THAT(csv, HasSubstr("case,Boundary conditions/Pressure values [Pa],status,reason,maximum speed [m/s],"
+                               "Newton iterations,wall time [s],ranks,folder\n"));
+    EXPECT_THAT(csv, HasSubstr("case-0000,\"100, 0\",converged,,0.25,"));
+    EXPECT_THAT(jsonl, HasSubstr("\"maximum speed\": {\"value\": 0.25, \"unit\": \"m/s\"}"));
+    EXPECT_EQ(sweep::unit_of_key(input::case_schema(), n_key), "-");
+    EXPECT_EQ(sweep::unit_of_key(input::case_schema(), "Geometry/Pipe/Radius"), "m");
+  }
+} // namespace
