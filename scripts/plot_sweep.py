@@ -8,7 +8,7 @@ NAME is a design-number column without its unit ("pressure drop inlet to outlet"
 KEY a varied key as written in the sweep file ("Boundary conditions/Inflow rates").
 Converged cases are filled markers; cases that did not converge are hollow markers
 (their last iterate); bad-input and crashed cases have no numbers and are left out.
-Logarithmic axes are chosen when positive values span more than a factor of 20.
+Logarithmic axes are chosen when positive values span a factor of 10 (x) or 20 (y) or more.
 """
 import argparse
 import csv
@@ -86,7 +86,7 @@ def main():
                       markerfacecolor=colour if p[2] else "white")
     all_x = [number(x) for points in curves.values() for x, _, _ in points] if xs_numeric else []
     all_y = [y for points in curves.values() for _, y, _ in points]
-    if all_x and min(all_x) > 0 and max(all_x) / min(all_x) > 20:
+    if all_x and min(all_x) > 0 and max(all_x) / min(all_x) >= 10:
         axis.set_xscale("log")
     if all_y and min(all_y) > 0 and max(all_y) / min(all_y) > 20:
         axis.set_yscale("log")

@@ -448,7 +448,8 @@ namespace lentus::sweep
         if (done_before > 0)
           head << "\nResuming: " << done_before << " case(s) done earlier are kept";
         if (retried > 0)
-          head << "; " << retried << " case(s) a stopped run was solving are run again";
+          head << (done_before > 0 ? "; " : "\n") << retried
+               << " case(s) were being solved when a run stopped: they are run again (up to --attempts)";
         if (plan.n_invalid() > 0)
           {
             head << "\n" << plan.n_invalid() << " case(s) are invalid and are recorded as bad input without solving:";

@@ -7,6 +7,7 @@ usage: scenarios.py SCENARIO LENTUS MPIEXEC WORKDIR
   resume   a sweep killed with SIGKILL after some cases resumes; every case once
   resume2  the same on 2 ranks (the whole process group is killed)
   array    --case-index (and SLURM_ARRAY_TASK_ID) then collect gives the runner's table
+  attempts a case runs died on --attempts times is recorded as crashed; a held lock refuses a runner
 Exits 1 with a message on the first failed check.
 """
 import csv
@@ -190,6 +191,29 @@ def scenario_array(lentus, mpiexec, work):
     check(without_time(h1, r1) == without_time(h2, r2), "array tasks and the runner give different tables")
 
 
+def scenario_attempts(lentus, mpiexec, work):
+    """A case on which runs died --attempts times is recorded as crashed; a held lock refuses a second runner."""
+    import fcntl
+    sweep = os.path.join(HERE, "six_cases.sweep")
+    folder = os.path.join(work, "out")
+    for sub in ("claims", "attempts"):
+        os.makedirs(os.path.join(folder, sub))
+    # As a runner that died twice before on case-0002 and once more now would leave it.
+    open(os.path.join(folder, "claims", "case-0002"), "w").close()
+    with open(os.path.join(folder, "attempts", "case-0002"), "w") as handle:
+        handle.write("2\n")
+    with open(os.path.join(folder, "runner.lock"), "w") as lock:
+        fcntl.flock(lock, fcntl.LOCK_EX)
+        finished = run([lentus, "sweep", sweep, "--output", folder], expect=2)
+        check("another sweep runner is working in it" in finished.stderr, "a second runner was not refused")
+    finished = run([lentus, "sweep", sweep, "--output", folder])
+    check("1 case(s) were being solved when a run stopped" in finished.stdout, "the stale claim was not noticed")
+    header, rows = each_case_once(folder, 6)
+    status = [row[header.index("status")] for row in rows]
+    check(status == ["converged", "converged", "crashed", "converged", "converged", "converged"], f"statuses {status}")
+    check("stopped while solving this case 3 times" in rows[2][header.index("reason")], "no reason for the crash")
+
+
 def main():
     if len(sys.argv) != 5:
         fail(__doc__)
@@ -204,6 +228,8 @@ def main():
         scenario_resume(lentus, mpiexec, work)
     elif scenario == "resume2":
         scenario_resume(lentus, mpiexec, work, ranks=2)
+    elif scenario == "attempts":
+        scenario_attempts(lentus, mpiexec, work)
     elif scenario == "array":
         scenario_array(lentus, mpiexec, work)
     else:
