@@ -1,6 +1,7 @@
 #include "meshes/geometry.h"
 
 #include "meshes/shapes/basic_shapes.h"
+#include "meshes/shapes/round_die.h"
 
 namespace lentus::meshes
 {
@@ -31,7 +32,11 @@ namespace lentus::meshes
 
   const std::vector<ShapeInfo> &shapes()
   {
-    static const std::vector<ShapeInfo> catalogue = basic_shapes();
+    static const std::vector<ShapeInfo> catalogue = [] {
+      std::vector<ShapeInfo> all = basic_shapes();
+      all.push_back(round_die_shape());
+      return all;
+    }();
     return catalogue;
   }
 

@@ -23,11 +23,24 @@ namespace lentus::meshes
     either
   };
 
+  /// A straight stretch of a shape where the flow can become fully developed
+  /// (a die's barrel or land), for developed-flow comparisons such as entrance losses.
+  struct StraightSection
+  {
+    std::string name;   ///< e.g. "barrel", "land"
+    bool        pipe;   ///< true: circular (radius), false: slit (half-gap)
+    double      size;   ///< radius or half-gap [m]
+    double      length; ///< [m]
+  };
+
   /// A sized shape, ready to mesh.
   class Geometry
   {
   public:
     virtual ~Geometry() = default;
+
+    /// Straight sections in flow order (empty for shapes without).
+    virtual std::vector<StraightSection> straight_sections() const { return {}; }
 
     /// Builds the coarse mesh with boundary ids, refined `refinement` times.
     virtual void create_mesh(dealii::Triangulation<2> &triangulation, unsigned int refinement) const = 0;

@@ -1,6 +1,8 @@
 // Design numbers by integration over cells and boundary roles, and field output.
 #include "solver/flow/flow_report.h"
 
+#include "solver/flow/developed_profile.h"
+
 #include <deal.II/base/quadrature_lib.h>
 #include <deal.II/dofs/dof_tools.h>
 #include <deal.II/fe/fe_values.h>
@@ -240,6 +242,43 @@ namespace lentus::flow
         const auto &in = role_sums.at(roles.at("inlet")), &out = role_sums.at(roles.at("outlet"));
         numbers.push_back({"pressure drop inlet to outlet", in[1] / in[2] - out[1] / out[2], "Pa"});
       }
+    // Dies: developed flow at the computed throughput in each straight section (exact 1D solution of
+    // the fluid's law), and the entrance loss beyond it (Bagley 1957: dp = 2 tau_w (L/R + e)).
+    const auto sections = state.flow.geometry->straight_sections();
+    if (!sections.empty() && roles.count("inlet") && roles.count("outlet"))
+      {
+        const auto  &out        = role_sums.at(roles.at("outlet"));
+        const auto  &in         = role_sums.at(roles.at("inlet"));
+        const double throughput = factor * out[0];
+        const double total_drop = in[1] / in[2] - out[1] / out[2];
+        double       developed  = 0., last_wall_stress = 0.;
+        for (const meshes::StraightSection &section : sections)
+          {
+            const DevelopedProfile profile(*state.law,
+                                           section.pipe ? DevelopedProfile::Channel::pipe : DevelopedProfile::Channel::slit,
+                                           section.size, throughput);
+            const double wall_stress = profile.wall_stress();
+            const double drop        = wall_stress * section.length / (section.pipe ? 0.5 * section.size : section.size);
+            developed += drop;
+            numbers.push_back({"developed pressure drop in the " + section.name, drop, "Pa"});
+            numbers.push_back({"developed wall shear stress in the " + section.name, wall_stress, "Pa"});
+            // Apparent wall shear rate 4Q/(pi R^3) (pipe) or 3q/(2h^2) per unit depth (slit), true rate from the law.
+            const double apparent = section.pipe ? 4. * throughput / (M_PI * std::pow(section.size, 3)) :
+                                                   1.5 * throughput / std::pow(section.size, 2);
+            numbers.push_back({"apparent wall shear rate in the " + section.name, apparent, "1/s"});
+            double low = 0., high = 1e12;
+            for (int i = 0; i < 200 && high - low > 1e-12 * high; ++i)
+              (state.law->stress(0.5 * (low + high)) < wall_stress ? low : high) = 0.5 * (low + high);
+            numbers.push_back({"wall shear rate in the " + section.name, 0.5 * (low + high), "1/s"});
+            numbers.push_back({"apparent viscosity in the " + section.name, wall_stress / apparent, "Pa s"});
+            last_wall_stress = wall_stress;
+          }
+        numbers.push_back({"entrance pressure loss", total_drop - developed, "Pa"});
+        // In radii (half-gaps) of the last section: dp_entrance = 2 tau_w e.
+        numbers.push_back({"entrance loss coefficient (Bagley end correction)",
+                           (total_drop - developed) / (2. * last_wall_stress), "-"});
+      }
+
     numbers.push_back({"power input through boundaries", power_in, "W" + per});
     numbers.push_back({"viscous dissipation", factor * sums[2], "W" + per});
     numbers.push_back({"maximum speed", max_speed, "m/s"});

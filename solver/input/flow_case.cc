@@ -47,7 +47,9 @@ namespace lentus::input
       {
         shape_names.push_back(shape.name);
         for (const rheology::ParameterInfo &parameter : shape.parameters)
-          schema.declare("Geometry/" + shape.name + "/" + parameter.key, "", ValueKind::real(parameter.range),
+          schema.declare("Geometry/" + shape.name + "/" + parameter.key,
+                         parameter.has_default() ? rheology::format_value(parameter.default_value) : "",
+                         ValueKind::real(parameter.range),
                          parameter.symbol + " [" + parameter.unit + "]: " + parameter.meaning + ".");
       }
     schema.declare("Geometry/Shape", "", ValueKind::selection(shape_names),
