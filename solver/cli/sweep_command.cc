@@ -98,6 +98,15 @@ Exit codes: 0 every case has a result, 1 some are missing, 2 bad sweep file.
 
     const sweep::SweepPlan plan =
       sweep::read_sweep_file(arguments.positional[0], settings_from(arguments), input::case_schema());
+    if (plan.n_invalid() == plan.cases.size())
+      {
+        std::string message = "every one of the " + std::to_string(plan.cases.size()) + " cases is invalid:";
+        for (std::size_t i = 0; i < plan.cases.size() && i < 5; ++i)
+          message += "\n  " + plan.cases[i].invalid_reason;
+        if (plan.cases.size() > 5)
+          message += "\n  ...";
+        throw InputError(plan.sweep_file, 0, message);
+      }
     if (arguments.has("--count"))
       {
         std::cout << plan.cases.size() << '\n';

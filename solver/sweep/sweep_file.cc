@@ -557,9 +557,8 @@ namespace lentus::sweep
         {
           SweepCase sweep_case;
           sweep_case.index = index;
-          char id[32];
-          std::snprintf(id, sizeof id, "case-%0*zu", width, index);
-          sweep_case.id = id;
+          const std::string digits = std::to_string(index);
+          sweep_case.id = "case-" + std::string(static_cast<std::size_t>(width) - digits.size(), '0') + digits;
           // Nested loops in file order: the last dimension varies fastest.
           std::size_t rest = index;
           std::vector<std::size_t> position(dimensions.size());
@@ -604,6 +603,39 @@ namespace lentus::sweep
         throw InputError(name, setting_lines[plan.plot_against.empty() ? "plot curves" : "plot against"],
                          "a plot needs 'plot = DESIGN NUMBER' (a column of the results table)");
       return plan;
+    }
+
+    /// A value the case would ignore: a key in subsection S/N where a selection key of S
+    /// (Viscosity law, Temperature shift, Shape) chooses another subsection than N.
+    /// The case reader accepts such keys, so a sweep over them would change nothing.
+    std::string ignored_value(const input::CaseFile &file, const input::CaseSchema &schema,
+                              const SweepCase &sweep_case)
+    {
+      for (const Override &value : sweep_case.overrides)
+        {
+          const auto last = value.path.rfind('/');
+          if (last == std::string::npos)
+            continue;
+          const std::string subsection = value.path.substr(0, last);
+          const auto        middle     = subsection.rfind('/');
+          if (middle == std::string::npos)
+            continue;
+          const std::string section = subsection.substr(0, middle);
+          const std::string chosen  = subsection.substr(middle + 1);
+          for (const input::KeyDeclaration &key : schema.keys())
+            if (key.path.compare(0, section.size() + 1, section + "/") == 0 &&
+                key.path.find('/', section.size() + 1) == std::string::npos &&
+                key.kind.type == input::ValueKind::Type::selection &&
+                std::find(key.kind.choices.begin(), key.kind.choices.end(), chosen) != key.kind.choices.end() &&
+                file.get(key.path) != chosen)
+              return value.file + (value.line > 0 ? ":" + std::to_string(value.line) : std::string()) + ": " +
+                     sweep_case.id + (sweep_case.name.empty() ? "" : " (" + sweep_case.name + ")") + ": " +
+                     value.path + " = " + value.value + ": would be ignored, because " + key.path + " = " +
+                     (file.get(key.path).empty() ? std::string("(not set)") : file.get(key.path)) +
+                     "; allowed: keys of the selected " + key.path.substr(key.path.rfind('/') + 1) +
+                     " (or vary " + key.path + " too)";
+        }
+      return "";
     }
 
     /// Rewrites a flow-case reader message about an overridden key so that it
@@ -709,6 +741,7 @@ namespace lentus::sweep
           const input::CaseFile file =
             input::CaseFile::parse(plan.base_text, plan.base_case, schema, case_overrides(plan, sweep_case));
           input::read_flow_case(file);
+          sweep_case.invalid_reason = ignored_value(file, schema, sweep_case);
         }
       catch (const InputError &error)
         {

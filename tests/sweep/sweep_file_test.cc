@@ -11,6 +11,8 @@
 #include <filesystem>
 #include <fstream>
 
+#include <unistd.h>
+
 namespace
 {
   using namespace lentus;
@@ -195,5 +197,54 @@ namespace
     EXPECT_THAT(jsonl, HasSubstr("\"maximum speed\": {\"value\": 0.25, \"unit\": \"m/s\"}"));
     EXPECT_EQ(sweep::unit_of_key(input::case_schema(), n_key), "-");
     EXPECT_EQ(sweep::unit_of_key(input::case_schema(), "Geometry/Pipe/Radius"), "m");
+  }
+} // namespace
+
+namespace
+{
+  std::string temporary_file(const std::string &name, const std::string &text)
+  {
+    const auto folder = std::filesystem::temp_directory_path() / ("lentus_sweep_test_" + std::to_string(::getpid()));
+    std::filesystem::create_directories(folder);
+    std::ofstream(folder / name) << text;
+    return (folder / name).string();
+  }
+
+  TEST(SweepFile, TableRowsAreCases)
+  {
+    const std::string table = temporary_file("points.csv", "# two cases\n" + n_key + "," + p_key +
+                                                              "\n0.4,\"100, 0\"\n0.6,\"300, 0\"\n");
+    const auto plan = parse("table = " + table + "\nvary Geometry/Refinement = 1, 2\n");
+    ASSERT_EQ(plan.cases.size(), 4u);
+    EXPECT_EQ(value_of(plan.cases[2], n_key), "0.6");
+    EXPECT_EQ(value_of(plan.cases[2], p_key), "300, 0");
+    EXPECT_EQ(value_of(plan.cases[3], "Geometry/Refinement"), "2");
+  }
+
+  TEST(SweepFile, CasesFromAnotherFileJoinTheCaseList)
+  {
+    const std::string list = temporary_file("fit_sweep.prm", "# as lentus fit writes it\ncase fitted\n  " + n_key +
+                                                                "= 0.4\nend\ncase sample-001\n  " + n_key + " = 0.5\nend\n");
+    const auto plan = parse("cases from = " + list + "\nvary " + p_key + " = 100, 0; 200, 0\n");
+    ASSERT_EQ(plan.cases.size(), 4u);
+    EXPECT_EQ(plan.cases[3].name, "sample-001");
+    EXPECT_EQ(value_of(plan.cases[3], n_key), "0.5");
+    EXPECT_EQ(value_of(plan.cases[3], p_key), "200, 0");
+    const std::string bad = temporary_file("bad_list.prm", "case a\n  " + n_key + " = 0.4\nend\nvary " + n_key + " = 1\n");
+    EXPECT_THAT(error_of("cases from = " + bad + "\n"),
+                HasSubstr(bad + ":4: cannot read 'vary " + n_key + " = 1'; a file named by 'cases from' holds only"));
+  }
+
+  TEST(SweepFile, ValuesTheCaseWouldIgnoreMakeItInvalid)
+  {
+    // The base case selects Carreau-Yasuda and a pipe: Cross parameters and channel
+    // dimensions would change nothing (a fitted case list against the wrong base case).
+    const auto plan = parse("vary Rheology/Cross/Zero-shear viscosity = 5, 6\n");
+    ASSERT_EQ(plan.n_invalid(), 2u);
+    EXPECT_THAT(plan.cases[0].invalid_reason,
+                HasSubstr("test.sweep:2: case-0000: Rheology/Cross/Zero-shear viscosity = 5: would be ignored, because "
+                          "Rheology/Viscosity law = Carreau-Yasuda"));
+    EXPECT_EQ(parse("vary Geometry/Channel/Length = 1, 2\n").n_invalid(), 2u);
+    EXPECT_EQ(parse("vary " + n_key + " = 0.5, 0.6\n").n_invalid(), 0u);
   }
 } // namespace
