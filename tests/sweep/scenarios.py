@@ -80,6 +80,16 @@ def scenario_ranks(lentus, mpiexec, work):
     check("flow rate out through outlet [m^3/s]" in h1, f"design numbers with units missing from {h1}")
     check("Boundary conditions/Pressure values [Pa]" in h1, f"varied key with unit missing from {h1}")
     check(without_time(h1, r1) == without_time(h2, r2), "tables on 1 and 2 ranks differ")
+    # Each case solved by one group of 2 ranks: the same design numbers to 1e-8 relative (the
+    # tolerance of the solver's own 1-vs-2-rank test, tests/CMakeLists.txt).
+    pair = os.path.join(work, "pair")
+    run([mpiexec] + MPI_FLAGS + ["-np", "2", lentus, "sweep", sweep, "--output", pair, "--ranks-per-case", "2"])
+    h3, r3 = each_case_once(pair, 6)
+    check(h3 == h1 and all(row[h3.index("ranks")] == "2" for row in r3), "cases not solved on 2 ranks each")
+    for a, b in zip(r1, r3):
+        for column in range(h1.index("reason") + 1, h1.index("Newton iterations")):
+            x, y = float(a[column]), float(b[column])
+            check(abs(x - y) <= 1e-8 * max(abs(x), abs(y)) + 1e-12, f"{a[0]} {h1[column]}: {x} vs {y} on 2 ranks")
     # A larger pressure drop drives more flow through the same pipe (monotone in the drop).
     q = {(row[1], row[2]): float(row[h1.index("flow rate out through outlet [m^3/s]")]) for row in r1}
     for n in ("0.4", "0.7"):
