@@ -96,8 +96,9 @@ Exit codes: 0 every case has a result, 1 some are missing, 2 bad sweep file.
         options.case_index = static_cast<std::size_t>(index);
       }
 
-    const sweep::SweepPlan plan =
-      sweep::read_sweep_file(arguments.positional[0], settings_from(arguments), input::case_schema());
+    sweep::SweepSettings settings = settings_from(arguments);
+    settings.validate_only         = options.case_index;
+    const sweep::SweepPlan plan    = sweep::read_sweep_file(arguments.positional[0], settings, input::case_schema());
     if (plan.n_invalid() == plan.cases.size())
       {
         std::string message = "every one of the " + std::to_string(plan.cases.size()) + " cases is invalid:";

@@ -736,21 +736,21 @@ namespace lentus::sweep
     }
     // Every case is read as the flow solver would read it, before anything runs.
     for (SweepCase &sweep_case : plan.cases)
-      try
-        {
-          const input::CaseFile file =
-            input::CaseFile::parse(plan.base_text, plan.base_case, schema, case_overrides(plan, sweep_case));
-          input::read_flow_case(file);
-          sweep_case.invalid_reason = ignored_value(file, schema, sweep_case);
-        }
-      catch (const InputError &error)
-        {
-          sweep_case.invalid_reason = locate(error.what(), plan, sweep_case);
-        }
-      catch (const std::exception &error)
-        {
-          sweep_case.invalid_reason = locate(error.what(), plan, sweep_case);
-        }
+      {
+        if (settings.validate_only && *settings.validate_only != sweep_case.index)
+          continue;
+        try
+          {
+            const input::CaseFile file =
+              input::CaseFile::parse(plan.base_text, plan.base_case, schema, case_overrides(plan, sweep_case));
+            input::read_flow_case(file);
+            sweep_case.invalid_reason = ignored_value(file, schema, sweep_case);
+          }
+        catch (const std::exception &error) // InputError, or a law's own complaint
+          {
+            sweep_case.invalid_reason = locate(error.what(), plan, sweep_case);
+          }
+      }
     return plan;
   }
 

@@ -25,6 +25,7 @@
 #pragma once
 
 #include <cstdint>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -82,6 +83,9 @@ namespace lentus::sweep
     std::string              base_case;      ///< --base (wins over the file's `base case`)
     std::string              results_folder; ///< --output (wins over `results folder`)
     std::vector<std::string> sets;           ///< --set Section/Key=value: fixed in every case
+    /// Array mode: read only this case as the solver would (the others were checked
+    /// when the sweep was checked or submitted; a few ms each adds up over many tasks).
+    std::optional<std::size_t> validate_only;
   };
 
   /// True if `text` reads as a sweep file rather than a case file: its first

@@ -113,6 +113,11 @@ def scenario_failures(lentus, mpiexec, work):
     check(reason["starved"] != "", "no reason recorded for the case that did not converge")
     check(os.path.exists(os.path.join(folder, "cases", "case-0003", "summary.json")),
           "the case after the failures was not solved")
+    # Array mode validates its own case: the invalid one gives exit code 2 and a bad-input row.
+    single = os.path.join(work, "single")
+    finished = run([lentus, "sweep", sweep, "--output", single, "--case-index", "1"], expect=2)
+    check("case-0001 (impossible): bad input" in finished.stdout, "array task did not record the bad case")
+    run([lentus, "sweep", sweep, "--output", single, "--case-index", "2"], expect=3)
     # check refuses the same file: the invalid case with file, line and key, exit code 2.
     finished = run([lentus, "check", sweep], expect=2)
     check("with_failures.sweep:10: case-0001 (impossible): Boundary conditions/Pressure values" in finished.stderr,
