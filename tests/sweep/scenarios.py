@@ -7,6 +7,7 @@ usage: scenarios.py SCENARIO LENTUS MPIEXEC WORKDIR
   resume   a sweep killed with SIGKILL after some cases resumes; every case once
   resume2  the same on 2 ranks (the whole process group is killed)
   array    --case-index (and SLURM_ARRAY_TASK_ID) then collect gives the runner's table
+  slurm    scripts/slurm_sweep.sbatch: array tasks, collect, then the one-job form
   attempts a case runs died on --attempts times is recorded as crashed; a held lock refuses a runner
 Exits 1 with a message on the first failed check.
 """
@@ -229,10 +230,33 @@ def scenario_attempts(lentus, mpiexec, work):
     check("stopped while solving this case 3 times" in rows[2][header.index("reason")], "no reason for the crash")
 
 
+def scenario_slurm(lentus, mpiexec, work):
+    """scripts/slurm_sweep.sbatch as array tasks, then its collect step, with srun standing in as a plain exec."""
+    root = os.path.dirname(os.path.dirname(HERE))
+    bin_folder = os.path.join(work, "bin")
+    os.makedirs(bin_folder)
+    with open(os.path.join(bin_folder, "srun"), "w") as handle:
+        handle.write('#!/bin/sh\nexec "$@"\n')
+    os.chmod(os.path.join(bin_folder, "srun"), 0o755)
+    results = os.path.join(work, "out")
+    environment = dict(os.environ, PATH=bin_folder + os.pathsep + os.environ["PATH"], SLURM_SUBMIT_DIR=root,
+                       SWEEP=os.path.join(HERE, "six_cases.sweep"), RESULTS=results, LENTUS=lentus)
+    template = os.path.join(root, "scripts", "slurm_sweep.sbatch")
+    for index in range(6):
+        run(["bash", template], env=dict(environment, SLURM_ARRAY_TASK_ID=str(index)))
+    finished = run(["bash", template], env=dict(environment, MODE="collect"))
+    check("6 of 6 cases" in finished.stdout, "the collect step did not merge the six cases")
+    each_case_once(results, 6)
+    # The one-job form on the same folder finds everything done.
+    finished = run(["bash", template], env=environment)
+    check("Resuming: 6 case(s) done earlier are kept" in finished.stdout, "the MPI form did not resume")
+
+
 def main():
     if len(sys.argv) != 5:
         fail(__doc__)
     scenario, lentus, mpiexec, work = sys.argv[1:]
+    os.environ.pop("SLURM_ARRAY_TASK_ID", None)  # inside a cluster's array job, lentus sweep would solve one case
     shutil.rmtree(work, ignore_errors=True)
     os.makedirs(work)
     if scenario == "ranks":
@@ -245,6 +269,8 @@ def main():
         scenario_resume(lentus, mpiexec, work, ranks=2)
     elif scenario == "attempts":
         scenario_attempts(lentus, mpiexec, work)
+    elif scenario == "slurm":
+        scenario_slurm(lentus, mpiexec, work)
     elif scenario == "array":
         scenario_array(lentus, mpiexec, work)
     else:
