@@ -91,7 +91,10 @@ def scenario_ranks(lentus, mpiexec, work):
         for column in range(h1.index("reason") + 1, h1.index("Newton iterations")):
             x, y = float(a[column]), float(b[column])
             check(abs(x - y) <= 1e-8 * max(abs(x), abs(y)) + 1e-12, f"{a[0]} {h1[column]}: {x} vs {y} on 2 ranks")
-    # A larger pressure drop drives more flow through the same pipe (monotone in the drop).
+    # A larger pressure drop drives more flow through the same pipe. Source: the Rabinowitsch-Mooney
+    # relation Q = pi R^3 / tau_w^3 * integral_0^tau_w tau^2 gamma_dot(tau) dtau with tau_w = R dp / (2 L)
+    # grows with tau_w whenever the flow curve is increasing (capillary rheometry, e.g. Macosko 1994,
+    # Rheology: Principles, Measurements and Applications, ch. 5; section from memory).
     q = {(row[1], row[2]): float(row[h1.index("flow rate out through outlet [m^3/s]")]) for row in r1}
     for n in ("0.4", "0.7"):
         check(q[("100, 0", n)] < q[("200, 0", n)] < q[("400, 0", n)], f"flow rate not increasing with pressure, n={n}")
