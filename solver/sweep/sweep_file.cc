@@ -666,6 +666,8 @@ namespace lentus::sweep
 
   std::string SweepPlan::shape_description() const
   {
+    if (dimension_sizes.size() == 1)
+      return "one list";
     if (combination == "zip")
       return std::to_string(dimension_sizes.size()) + " dimensions zipped";
     std::string text;

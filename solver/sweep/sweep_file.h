@@ -71,7 +71,7 @@ namespace lentus::sweep
     std::string              plot_number, plot_against, plot_curves; ///< "" if not set
 
     std::size_t n_invalid() const;
-    /// "3 x 4 grid" or "zip of 5".
+    /// "3 x 4 grid", "2 dimensions zipped" or "one list".
     std::string shape_description() const;
     /// Every case spelled out, for the record (plan.txt in the results folder).
     std::string plan_text() const;
