@@ -222,7 +222,9 @@ namespace lentus::sweep
           {
             const double left = (total - done()) * solved_seconds / solved / groups;
             char         estimate[40];
-            if (left < 120.)
+            if (left < 1.)
+              std::snprintf(estimate, sizeof estimate, "under 1 s");
+            else if (left < 120.)
               std::snprintf(estimate, sizeof estimate, "%.0f s", left);
             else if (left < 7200.)
               std::snprintf(estimate, sizeof estimate, "%.1f min", left / 60.);
