@@ -35,6 +35,7 @@ namespace lentus::meshes
     static const std::vector<ShapeInfo> catalogue = [] {
       std::vector<ShapeInfo> all = basic_shapes();
       all.push_back(round_die_shape());
+      all.push_back(slit_die_shape());
       return all;
     }();
     return catalogue;

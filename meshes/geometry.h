@@ -31,6 +31,7 @@ namespace lentus::meshes
     bool        pipe;   ///< true: circular (radius), false: slit (half-gap)
     double      size;   ///< radius or half-gap [m]
     double      length; ///< [m]
+    double      flow_fraction = 1.; ///< share of the section's flow the mesh carries (0.5: half a slit)
   };
 
   /// A sized shape, ready to mesh.

@@ -56,6 +56,8 @@ namespace lentus::meshes
       return points;
     }
 
+    /// Round die (axisymmetric; transverse coordinate r, axis at r = 0) or flat-sheet slit die
+    /// (planar; transverse coordinate x, symmetry plane at x = 0, the half gap meshed).
     class RoundDie : public Geometry
     {
     public:
@@ -63,8 +65,10 @@ namespace lentus::meshes
                const double barrel_length_,
                const double half_angle_degrees,
                const double land_radius_,
-               const double land_length_)
-        : barrel_radius(barrel_radius_)
+               const double land_length_,
+               const bool   slit_ = false)
+        : slit(slit_)
+        , barrel_radius(barrel_radius_)
         , barrel_length(barrel_length_)
         , half_angle(half_angle_degrees * M_PI / 180.)
         , land_radius(land_radius_)
@@ -133,7 +137,7 @@ namespace lentus::meshes
                 const double           tolerance = 1e-9 * end;
                 const char *role = std::abs(center[1]) < tolerance       ? "inlet" :
                                    std::abs(center[1] - end) < tolerance ? "outlet" :
-                                   std::abs(center[0]) < tolerance       ? "axis" :
+                                   std::abs(center[0]) < tolerance       ? (slit ? "symmetry" : "axis") :
                                                                            "wall";
                 face->set_boundary_id(roles.at(role));
               }
@@ -142,17 +146,20 @@ namespace lentus::meshes
 
       std::map<std::string, dealii::types::boundary_id> boundary_roles() const override
       {
-        return {{"inlet", 0}, {"outlet", 1}, {"wall", 2}, {"axis", 3}};
+        return {{"inlet", 0}, {"outlet", 1}, {"wall", 2}, {slit ? "symmetry" : "axis", 3}};
       }
 
-      Symmetry symmetry() const override { return Symmetry::axisymmetric_only; }
+      Symmetry symmetry() const override { return slit ? Symmetry::planar_only : Symmetry::axisymmetric_only; }
 
       std::vector<StraightSection> straight_sections() const override
       {
-        return {{"barrel", true, barrel_radius, barrel_length}, {"land", true, land_radius, land_length}};
+        const double fraction = slit ? 0.5 : 1.;
+        return {{"barrel", !slit, barrel_radius, barrel_length, fraction},
+                {"land", !slit, land_radius, land_length, fraction}};
       }
 
     private:
+      bool   slit;
       double barrel_radius, barrel_length, half_angle, land_radius, land_length;
     };
   } // namespace
@@ -180,6 +187,33 @@ namespace lentus::meshes
                                        "not smaller than Barrel radius = " + format_value(v[0]),
                                        "Land radius < Barrel radius");
               return std::make_unique<RoundDie>(v[0], v[1], v[2], v[3], v[4]);
+            }};
+  }
+
+  ShapeInfo slit_die_shape()
+  {
+    return {"Slit die",
+            "planar flat-sheet slit die, half of the gap meshed (x >= 0, symmetry plane x = 0), flow along +y: "
+            "manifold gap of half-width H_b and length L_b, converging entry of half-angle alpha (90: abrupt), "
+            "land of half-gap H_l and length L_l; roles: inlet (y = 0), outlet (end of the land), wall, symmetry. "
+            "Flow rates are per metre of die width and for the half gap.",
+            {{"Manifold half-gap", "H_b", "m", "half-width of the gap upstream of the land", Range::above(0.)},
+             {"Manifold length", "L_b", "m", "length of the upstream gap modelled", Range::above(0.)},
+             {"Entry half-angle", "alpha", "degree", "half-angle of the converging entry; 90 for an abrupt entry",
+              [] {
+                Range range = Range::above(0.);
+                range.upper = 90.;
+                return range;
+              }(),
+              90.},
+             {"Land half-gap", "H_l", "m", "half of the die-land opening", Range::above(0.)},
+             {"Land length", "L_l", "m", "length of the die land", Range::above(0.)}},
+            [](const std::vector<double> &v) -> std::unique_ptr<Geometry> {
+              if (!(v[3] < v[0]))
+                throw InvalidParameter("Land half-gap", format_value(v[3]),
+                                       "not smaller than Manifold half-gap = " + format_value(v[0]),
+                                       "Land half-gap < Manifold half-gap");
+              return std::make_unique<RoundDie>(v[0], v[1], v[2], v[3], v[4], true);
             }};
   }
 } // namespace lentus::meshes

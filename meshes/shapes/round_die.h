@@ -1,4 +1,4 @@
-// The axisymmetric round die shape.
+// Die shapes: the axisymmetric round die and the planar flat-sheet slit die.
 #pragma once
 
 #include "meshes/geometry.h"
@@ -6,4 +6,5 @@
 namespace lentus::meshes
 {
   ShapeInfo round_die_shape();
+  ShapeInfo slit_die_shape();
 } // namespace lentus::meshes

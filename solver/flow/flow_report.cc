@@ -249,11 +249,13 @@ namespace lentus::flow
       {
         const auto  &out        = role_sums.at(roles.at("outlet"));
         const auto  &in         = role_sums.at(roles.at("inlet"));
-        const double throughput = factor * out[0];
+        const double modelled   = factor * out[0];
         const double total_drop = in[1] / in[2] - out[1] / out[2];
         double       developed  = 0., last_wall_stress = 0.;
         for (const meshes::StraightSection &section : sections)
           {
+            // The whole section's flow (a half slit carries half of it).
+            const double throughput = modelled / section.flow_fraction;
             const DevelopedProfile profile(*state.law,
                                            section.pipe ? DevelopedProfile::Channel::pipe : DevelopedProfile::Channel::slit,
                                            section.size, throughput);

@@ -69,3 +69,55 @@ TEST(RoundDie, AbruptContractionEntranceLoss)
   EXPECT_LT(coefficient[2], 3. * M_PI / 16.);
   EXPECT_GT(coefficient[2], 0.5);
 }
+
+TEST(SlitDie, AbruptContractionDevelopedFlowAndEnergy)
+{
+  // Half of a planar 4:1 slit contraction (symmetry plane at x = 0). The half carries 0.5 m^2/s, so the
+  // full slit carries q = 1 m^2/s per metre of width.
+  const std::string text = R"(subsection Rheology
+  set Viscosity law = Newtonian
+  subsection Newtonian
+    set Viscosity = 1
+  end
+end
+subsection Geometry
+  set Shape = Slit die
+  subsection Slit die
+    set Manifold half-gap = 4
+    set Manifold length   = 10
+    set Land half-gap     = 1
+    set Land length       = 10
+  end
+end
+subsection Boundary conditions
+  set No-slip         = wall
+  set Symmetry        = symmetry
+  set Inflow          = inlet
+  set Inflow rates    = 0.5
+  set Pressure        = outlet
+  set Pressure values = 0
+end
+)";
+  std::vector<double> drop;
+  for (const int level : {0, 1, 2})
+    {
+      const auto result = lentus::testing::run_case("slit_die_" + std::to_string(level), text,
+                                                    {"Geometry/Refinement=" + std::to_string(level)});
+      ASSERT_TRUE(result.converged) << result.reason;
+      // Analytic (plane Poiseuille; CHECKS.md A1 with n = 1): tau_w = 3 mu q / (2 h^2) = 1.5 Pa in the
+      // land (h = 1 m), pressure drop tau_w L / h = 15 Pa; apparent wall shear rate 6 q / H^2 = 1.5 1/s.
+      EXPECT_NEAR(result.number("developed wall shear stress in the land"), 1.5, 1e-5 * 1.5);
+      EXPECT_NEAR(result.number("developed pressure drop in the land"), 15., 1e-5 * 15.);
+      EXPECT_NEAR(result.number("apparent wall shear rate in the land"), 1.5, 1e-6 * 1.5); // from the computed outflow
+      EXPECT_NEAR(result.number("power input through boundaries"), result.number("viscous dissipation"),
+                  0.005 * result.number("viscous dissipation"));
+      drop.push_back(result.number("pressure drop inlet to outlet"));
+    }
+  std::cout << "slit die pressure drop at levels 0, 1, 2: " << drop[0] << ", " << drop[1] << ", " << drop[2]
+            << std::endl;
+  // Mesh convergence (common practice): under 1% between the finest two levels.
+  EXPECT_LT(std::abs(drop[2] - drop[1]), 0.01 * drop[2]);
+  // The total exceeds the developed drops (land 15 Pa; manifold tau_w L / h = (1.5 / 16) * 10 / 4 =
+  // 0.234375 Pa): the entrance loss of a Newtonian contraction is positive.
+  EXPECT_GT(drop[2], 15. + 0.234375);
+}
