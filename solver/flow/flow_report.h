@@ -12,6 +12,10 @@ namespace lentus::flow
   /// Makes the pressure mean-free when it was pinned; returns the design numbers.
   std::vector<DesignNumber> design_numbers(FlowState &state);
 
+  /// The velocity across the role "outlet" (a die exit): CSV text on rank 0, one row per node of
+  /// the outlet, ordered by the transverse coordinate; empty if the shape has no outlet. All ranks call.
+  std::string exit_profile_csv(const FlowState &state);
+
   /// Writes the VTU/PVTU/PVD field files into `folder` (all ranks).
   void write_fields(const FlowState &state, const std::string &folder);
 } // namespace lentus::flow

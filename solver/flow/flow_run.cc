@@ -124,6 +124,7 @@ namespace lentus::flow
     MPI_Barrier(communicator);
     if (flow.write_fields)
       write_fields(state, partial.string());
+    const std::string exit_profile = exit_profile_csv(state);
 
     state.log.line(report.converged ? "Converged." : "NOT CONVERGED: " + report.reason);
     state.log.line("Design numbers" + std::string(report.converged ? "" : " (of the last iterate, not converged)") + ":");
@@ -172,6 +173,8 @@ namespace lentus::flow
         report::write_file_atomically((partial / "summary.json").string(), json.str());
         report::write_file_atomically((partial / "case.prm").string(), flow.complete_text);
         report::write_file_atomically((partial / "log.txt").string(), state.log.text());
+        if (!exit_profile.empty())
+          report::write_file_atomically((partial / "exit_profile.csv").string(), exit_profile);
         std::filesystem::remove_all(folder);
         if (folder.has_parent_path())
           std::filesystem::create_directories(folder.parent_path());

@@ -4,7 +4,10 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <fstream>
 #include <iostream>
+#include <sstream>
+#include <string>
 
 namespace
 {
@@ -68,6 +71,25 @@ TEST(RoundDie, AbruptContractionEntranceLoss)
   // a finite 4:1 ratio gives "a somewhat lower" value. Loose lower bound 0.5 (from memory).
   EXPECT_LT(coefficient[2], 3. * M_PI / 16.);
   EXPECT_GT(coefficient[2], 0.5);
+
+  // Exit velocity profile (exit_profile.csv): the land is long (10 radii), so the exit is developed:
+  // Hagen-Poiseuille u(r) = 2 V (1 - r^2/R^2), V = Q / (pi R^2) = 1/pi m/s (analytic); within 1% of 2V.
+  std::ifstream profile("verification_out/contraction_2/exit_profile.csv");
+  std::string   line;
+  ASSERT_TRUE(std::getline(profile, line)) << "no exit_profile.csv";
+  EXPECT_EQ(line, "r [m],z [m],outflow velocity [m/s],tangential velocity [m/s]");
+  int rows = 0;
+  while (std::getline(profile, line))
+    {
+      double            r, z, u, t;
+      char              comma;
+      std::stringstream fields(line);
+      fields >> r >> comma >> z >> comma >> u >> comma >> t;
+      EXPECT_NEAR(u, 2. / M_PI * (1. - r * r), 0.01 * 2. / M_PI) << "r = " << r;
+      EXPECT_NEAR(t, 0., 1e-12);
+      ++rows;
+    }
+  EXPECT_GE(rows, 9);
 }
 
 TEST(SlitDie, AbruptContractionDevelopedFlowAndEnergy)
