@@ -164,6 +164,18 @@ namespace lentus::meshes
     };
   } // namespace
 
+  namespace
+  {
+    /// The entry half-angle row shared by the die shapes: 0 < alpha <= 90 degrees, default abrupt.
+    ParameterInfo entry_half_angle()
+    {
+      Range range = Range::above(0.);
+      range.upper = 90.;
+      return {"Entry half-angle", "alpha", "degree", "half-angle of the converging entry; 90 for an abrupt entry",
+              range, 90.};
+    }
+  } // namespace
+
   ShapeInfo round_die_shape()
   {
     return {"Round die",
@@ -172,13 +184,7 @@ namespace lentus::meshes
             "(z = 0), outlet (end of the land), wall, axis",
             {{"Barrel radius", "R_b", "m", "radius of the reservoir upstream of the die", Range::above(0.)},
              {"Barrel length", "L_b", "m", "length of the reservoir modelled", Range::above(0.)},
-             {"Entry half-angle", "alpha", "degree", "half-angle of the converging entry; 90 for an abrupt entry",
-              [] {
-                Range range = Range::above(0.);
-                range.upper = 90.;
-                return range;
-              }(),
-              90.},
+             entry_half_angle(),
              {"Land radius", "R_l", "m", "radius of the die land (the capillary)", Range::above(0.)},
              {"Land length", "L_l", "m", "length of the die land", Range::above(0.)}},
             [](const std::vector<double> &v) -> std::unique_ptr<Geometry> {
@@ -199,13 +205,7 @@ namespace lentus::meshes
             "Flow rates are per metre of die width and for the half gap.",
             {{"Manifold half-gap", "H_b", "m", "half-width of the gap upstream of the land", Range::above(0.)},
              {"Manifold length", "L_b", "m", "length of the upstream gap modelled", Range::above(0.)},
-             {"Entry half-angle", "alpha", "degree", "half-angle of the converging entry; 90 for an abrupt entry",
-              [] {
-                Range range = Range::above(0.);
-                range.upper = 90.;
-                return range;
-              }(),
-              90.},
+             entry_half_angle(),
              {"Land half-gap", "H_l", "m", "half of the die-land opening", Range::above(0.)},
              {"Land length", "L_l", "m", "length of the die land", Range::above(0.)}},
             [](const std::vector<double> &v) -> std::unique_ptr<Geometry> {
