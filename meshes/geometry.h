@@ -65,6 +65,7 @@ namespace lentus::meshes
     std::string                            description; ///< one sentence with the roles
     std::vector<rheology::ParameterInfo>   parameters;  ///< dimensions [m], in `create` order
     std::function<std::unique_ptr<Geometry>(const std::vector<double> &)> create; ///< throws InvalidParameter
+    std::vector<double> example; ///< plausible dimensions for starter cases (invented), in `parameters` order
   };
 
   /// Every shape, in catalogue order.

@@ -79,7 +79,8 @@ namespace lentus::meshes
          return std::make_unique<Rectangle>(dealii::Point<2>(0., 0.), dealii::Point<2>(v[0], v[1]),
                                             std::array<std::string, 4>{"inlet", "outlet", "bottom wall", "top wall"},
                                             Symmetry::planar_only);
-       }},
+       },
+       {1., 0.1}},
       {"Pipe",
        "circular pipe, axisymmetric: (r, z) in [0, R] x [0, L]; roles: axis (r = 0), wall (r = R), "
        "inlet (z = 0), outlet (z = L)",
@@ -88,7 +89,8 @@ namespace lentus::meshes
          return std::make_unique<Rectangle>(dealii::Point<2>(0., 0.), dealii::Point<2>(v[0], v[1]),
                                             std::array<std::string, 4>{"axis", "wall", "inlet", "outlet"},
                                             Symmetry::axisymmetric_only);
-       }},
+       },
+       {0.05, 0.5}},
       {"Annular gap",
        "gap between two coaxial cylinders, axisymmetric: (r, z) in [R_i, R_o] x [0, H]; roles: inner wall, "
        "outer wall, bottom (z = 0), top (z = H)",
@@ -103,7 +105,8 @@ namespace lentus::meshes
          return std::make_unique<Rectangle>(dealii::Point<2>(v[0], 0.), dealii::Point<2>(v[1], v[2]),
                                             std::array<std::string, 4>{"inner wall", "outer wall", "bottom", "top"},
                                             Symmetry::axisymmetric_only);
-       }},
+       },
+       {0.05, 0.1, 0.02}},
       {"Cavity",
        "square cavity [0, S] x [0, S]; roles: lid (y = S), walls (the other three sides)",
        {{"Side length", "S", "m", "side of the square", Range::above(0.)}},
@@ -111,7 +114,8 @@ namespace lentus::meshes
          return std::make_unique<Rectangle>(dealii::Point<2>(0., 0.), dealii::Point<2>(v[0], v[0]),
                                             std::array<std::string, 4>{"walls", "walls", "walls", "lid"},
                                             Symmetry::planar_only);
-       }},
+       },
+       {0.1}},
     };
   }
 } // namespace lentus::meshes

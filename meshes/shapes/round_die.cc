@@ -193,7 +193,8 @@ namespace lentus::meshes
                                        "not smaller than Barrel radius = " + format_value(v[0]),
                                        "Land radius < Barrel radius");
               return std::make_unique<RoundDie>(v[0], v[1], v[2], v[3], v[4]);
-            }};
+            },
+            {0.01, 0.02, 30., 0.0015, 0.015}};
   }
 
   ShapeInfo slit_die_shape()
@@ -214,6 +215,7 @@ namespace lentus::meshes
                                        "not smaller than Manifold half-gap = " + format_value(v[0]),
                                        "Land half-gap < Manifold half-gap");
               return std::make_unique<RoundDie>(v[0], v[1], v[2], v[3], v[4], true);
-            }};
+            },
+            {0.003, 0.01, 45., 0.0005, 0.02}};
   }
 } // namespace lentus::meshes

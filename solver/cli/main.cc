@@ -23,6 +23,7 @@ commands:
   laws         list the viscosity laws and temperature shifts with their parameters and units
   flow-curve   print (and draw) the flow curve of the fluid in a case file
   run          solve the flow in a case file and write its results folder
+  starter      print a commented starter case for a shape
   check        validate a case file (or a sweep file) without solving
   sweep        run every case of a sweep file, on MPI ranks, resumable; one results table
   collect      merge the finished cases of a sweep into its results table
@@ -58,6 +59,8 @@ int main(int argc, char **argv)
         return cli::flow_curve_command(argc, argv, 2);
       if (command == "run")
         return cli::run_command(argc, argv, 2);
+      if (command == "starter")
+        return cli::starter_command(argc, argv, 2);
       if (command == "check")
         return cli::check_command(argc, argv, 2);
       if (command == "fit")
@@ -67,7 +70,7 @@ int main(int argc, char **argv)
       if (command == "collect")
         return cli::collect_command(argc, argv, 2);
       throw InputError("command line", 0,
-                       "unknown command '" + command + "'; allowed: laws, flow-curve, run, check, fit, sweep, collect (see lentus --help)");
+                       "unknown command '" + command + "'; allowed: laws, flow-curve, run, starter, check, fit, sweep, collect (see lentus --help)");
     }
   catch (const InputError &error)
     {
