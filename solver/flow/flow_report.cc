@@ -324,7 +324,7 @@ namespace lentus::flow
                   const int           t = std::abs(n[0]) > std::abs(n[1]) ? 1 : 0;
                   const double        normal = values[q][0] * n[0] + values[q][1] * n[1];
                   const double        tangential = values[q][0] * n[1] - values[q][1] * n[0];
-                  rows.push_back(std::array<double, 5>{x[t], x[0], x[1], normal, tangential});
+                  rows.push_back(std::array<double, 5>{{x[t], x[0], x[1], normal, tangential}});
                 }
             }
     const auto all = Utilities::MPI::gather(state.comm, rows, 0);
