@@ -77,7 +77,7 @@ namespace lentus::meshes
        {length, {"Height", "H", "m", "gap between the plates", Range::above(0.)}},
        [](const std::vector<double> &v) -> std::unique_ptr<Geometry> {
          return std::make_unique<Rectangle>(dealii::Point<2>(0., 0.), dealii::Point<2>(v[0], v[1]),
-                                            std::array<std::string, 4>{"inlet", "outlet", "bottom wall", "top wall"},
+                                            std::array<std::string, 4>{{"inlet", "outlet", "bottom wall", "top wall"}},
                                             Symmetry::planar_only);
        },
        {1., 0.1}},
@@ -87,7 +87,7 @@ namespace lentus::meshes
        {{"Radius", "R", "m", "pipe radius", Range::above(0.)}, length},
        [](const std::vector<double> &v) -> std::unique_ptr<Geometry> {
          return std::make_unique<Rectangle>(dealii::Point<2>(0., 0.), dealii::Point<2>(v[0], v[1]),
-                                            std::array<std::string, 4>{"axis", "wall", "inlet", "outlet"},
+                                            std::array<std::string, 4>{{"axis", "wall", "inlet", "outlet"}},
                                             Symmetry::axisymmetric_only);
        },
        {0.05, 0.5}},
@@ -103,7 +103,7 @@ namespace lentus::meshes
                                             "not larger than Inner radius = " + rheology::format_value(v[0]),
                                             "Outer radius > Inner radius");
          return std::make_unique<Rectangle>(dealii::Point<2>(v[0], 0.), dealii::Point<2>(v[1], v[2]),
-                                            std::array<std::string, 4>{"inner wall", "outer wall", "bottom", "top"},
+                                            std::array<std::string, 4>{{"inner wall", "outer wall", "bottom", "top"}},
                                             Symmetry::axisymmetric_only);
        },
        {0.05, 0.1, 0.02}},
@@ -112,7 +112,7 @@ namespace lentus::meshes
        {{"Side length", "S", "m", "side of the square", Range::above(0.)}},
        [](const std::vector<double> &v) -> std::unique_ptr<Geometry> {
          return std::make_unique<Rectangle>(dealii::Point<2>(0., 0.), dealii::Point<2>(v[0], v[0]),
-                                            std::array<std::string, 4>{"walls", "walls", "walls", "lid"},
+                                            std::array<std::string, 4>{{"walls", "walls", "walls", "lid"}},
                                             Symmetry::planar_only);
        },
        {0.1}},
