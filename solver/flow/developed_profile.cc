@@ -5,30 +5,29 @@
 
 namespace lentus::flow
 {
+  double inverse_shear_rate(const rheology::ViscosityLaw &law, const double tau)
+  {
+    if (tau <= 0.)
+      return 0.;
+    double high = 1.;
+    while (law.stress(high) < tau && high < 1e30)
+      high *= 10.;
+    double low = high;
+    while (law.stress(low) > tau && low > 1e-300)
+      low *= 0.1;
+    if (law.stress(low) > tau)
+      return 0.;
+    for (int i = 0; i < 80; ++i)
+      {
+        const double middle = std::sqrt(low * high);
+        (law.stress(middle) < tau ? low : high) = middle;
+      }
+    return std::sqrt(low * high);
+  }
+
   namespace
   {
     constexpr int points = 2000;
-
-    /// gamma_dot with tau(gamma_dot) = tau, by bisection in log space (tau(gamma_dot) increasing).
-    double inverse_shear_rate(const rheology::ViscosityLaw &law, const double tau)
-    {
-      if (tau <= 0.)
-        return 0.;
-      double high = 1.;
-      while (law.stress(high) < tau && high < 1e30)
-        high *= 10.;
-      double low = high;
-      while (law.stress(low) > tau && low > 1e-300)
-        low *= 0.1;
-      if (law.stress(low) > tau)
-        return 0.;
-      for (int i = 0; i < 80; ++i)
-        {
-          const double middle = std::sqrt(low * high);
-          (law.stress(middle) < tau ? low : high) = middle;
-        }
-      return std::sqrt(low * high);
-    }
 
     /// u_k on s_k = h k / points for wall stress tau_w, and the flow rate it carries.
     double profile(const rheology::ViscosityLaw &law,

@@ -8,6 +8,10 @@
 
 namespace lentus::flow
 {
+  /// The shear rate at which the law's stress eta(gamma_dot) gamma_dot equals tau [Pa] (tau(gamma_dot)
+  /// increasing), by bisection in log space; 0 for tau <= 0.
+  double inverse_shear_rate(const rheology::ViscosityLaw &law, double tau);
+
   /// u(s), s = distance from the midplane (slit) or the axis (pipe), for the
   /// flow rate Q (slit: per unit depth [m^2/s]; pipe: [m^3/s]). Built from the
   /// exact 1D momentum balance tau(s) = tau_w s / h and the law's inverse

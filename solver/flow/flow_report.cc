@@ -85,9 +85,10 @@ namespace lentus::flow
     FEValues<2>      fe_values(state.fe, quadrature,
                                update_values | update_gradients | update_quadrature_points | update_JxW_values);
     FEFaceValues<2>  face_values(state.fe, face_quadrature,
-                                 update_values | update_gradients | update_quadrature_points |
-                                   update_normal_vectors | update_JxW_values);
+                                 update_values | update_quadrature_points | update_normal_vectors | update_JxW_values);
     std::vector<dealii::Vector<double>>    values(quadrature.size(), dealii::Vector<double>(state.n_velocity + 1));
+    std::vector<dealii::Vector<double>>    face_point_values(face_quadrature.size(),
+                                                          dealii::Vector<double>(state.n_velocity + 1));
     std::vector<std::vector<Tensor<1, 2>>> gradients(quadrature.size(), std::vector<Tensor<1, 2>>(state.n_velocity + 1));
 
     // Mean-free pressure when it was pinned: p -= int p w / int w.
@@ -161,22 +162,15 @@ namespace lentus::flow
           if (cell->face(face_no)->at_boundary())
             {
               face_values.reinit(cell, face_no);
-              face_values.get_function_values(state.solution, values);
-              face_values.get_function_gradients(state.solution, gradients);
+              face_values.get_function_values(state.solution, face_point_values);
               auto &sum = role_sums[cell->face(face_no)->boundary_id()];
               for (unsigned int q = 0; q < face_quadrature.size(); ++q)
                 {
-                  const Point<2> x(is_axisymmetric(state.kind) ? std::max(face_values.quadrature_point(q)[0], 1e-300) :
-                                                                 face_values.quadrature_point(q)[0],
-                                   face_values.quadrature_point(q)[1]);
-                  const double     w = volume_weight(state.kind, x) * face_values.JxW(q);
-                  const Kinematics u = kinematics(state.kind, x, &values[q][0], gradients[q].data());
-                  const double     p = values[q][pressure_component];
-                  Tensor<1, 3>     n;
-                  n[0] = face_values.normal_vector(q)[0];
-                  n[2] = face_values.normal_vector(q)[1];
-                  sum[0] += u.U * n * w;
-                  sum[1] += p * w;
+                  // Only the in-plane components (mesh components 0, 1) cross the boundary.
+                  const Tensor<1, 2> &n = face_values.normal_vector(q);
+                  const double w = volume_weight(state.kind, face_values.quadrature_point(q)) * face_values.JxW(q);
+                  sum[0] += (face_point_values[q][0] * n[0] + face_point_values[q][1] * n[1]) * w;
+                  sum[1] += face_point_values[q][pressure_component] * w;
                   sum[2] += w;
                 }
             }
@@ -271,10 +265,8 @@ namespace lentus::flow
             const double apparent = section.pipe ? 4. * throughput / (M_PI * std::pow(section.size, 3)) :
                                                    1.5 * throughput / std::pow(section.size, 2);
             numbers.push_back({"apparent wall shear rate in the " + section.name, apparent, "1/s"});
-            double low = 0., high = 1e12;
-            for (int i = 0; i < 200 && high - low > 1e-12 * high; ++i)
-              (state.law->stress(0.5 * (low + high)) < wall_stress ? low : high) = 0.5 * (low + high);
-            numbers.push_back({"wall shear rate in the " + section.name, 0.5 * (low + high), "1/s"});
+            numbers.push_back(
+              {"wall shear rate in the " + section.name, inverse_shear_rate(*state.law, wall_stress), "1/s"});
             numbers.push_back({"apparent viscosity in the " + section.name, wall_stress / apparent, "Pa s"});
             last_wall_stress = wall_stress;
           }
