@@ -194,11 +194,13 @@ namespace lentus::flow
     velocity_mask.set(state.n_velocity, false);
     IndexSet                       claimed(state.dof_handler.n_dofs());
     std::map<std::string, double>  role_torque, role_power;
+    std::map<std::string, std::array<double, 2>> role_force;
     for (const input::BoundaryCondition &bc : state.flow.conditions)
       {
         const IndexSet on_role =
           DoFTools::extract_boundary_dofs(state.dof_handler, velocity_mask, {roles.at(bc.role)}) & state.owned;
         double torque = 0., power = 0.;
+        double force[2] = {0., 0.};
         for (const auto index : on_role)
           {
             if (claimed.is_element(index))
@@ -207,6 +209,9 @@ namespace lentus::flow
             const double    reaction = reactions[index];
             const Point<2> &x        = support_points.at(index);
             power += reaction * state.solution[index];
+            for (unsigned int c = 0; c < 2; ++c)
+              if (component_dofs[c].is_element(index))
+                force[c] += reaction;
             // Torque about the axis (swirl: r R_theta) or the origin (planar: x R_y - y R_x).
             if (state.kind == FormulationKind::planar)
               torque += component_dofs[0].is_element(index) ? -x[1] * reaction : x[0] * reaction;
@@ -215,6 +220,8 @@ namespace lentus::flow
           }
         role_torque[bc.role] = factor * Utilities::MPI::sum(torque, state.comm);
         role_power[bc.role]  = factor * Utilities::MPI::sum(power, state.comm);
+        Utilities::MPI::sum(ArrayView<const double>(force, 2), state.comm, ArrayView<double>(force, 2));
+        role_force[bc.role] = {{factor * force[0], factor * force[1]}};
       }
 
     std::vector<DesignNumber> numbers;
@@ -229,6 +236,15 @@ namespace lentus::flow
                           bc.type == input::BoundaryCondition::Type::moving_wall;
         if (wall && state.kind != FormulationKind::axisymmetric)
           numbers.push_back({"torque on the fluid from " + bc.role, role_torque[bc.role], "N m" + per});
+        // Force the wall exerts on the fluid (the fluid's drag on the wall is its negative). Axisymmetric:
+        // the axial force only (the radial one cancels around the circumference).
+        if (wall && axisymmetric)
+          numbers.push_back({"axial force on the fluid from " + bc.role, role_force[bc.role][1], "N"});
+        else if (wall)
+          {
+            numbers.push_back({"x force on the fluid from " + bc.role, role_force[bc.role][0], "N/m"});
+            numbers.push_back({"y force on the fluid from " + bc.role, role_force[bc.role][1], "N/m"});
+          }
         // Power put in: the reactions' work on Dirichlet roles; -p Q on roles at a set pressure.
         power_in += role_power[bc.role];
         if (bc.type == input::BoundaryCondition::Type::pressure)

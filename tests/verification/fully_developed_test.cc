@@ -101,6 +101,10 @@ TEST_P(PowerLawSlit, FlowRateAndEnergyBalance)
   const auto   result = run_case("power_law_slit", channel_case(power_law(n), 3));
   ASSERT_TRUE(result.converged) << result.reason;
   EXPECT_LT(relative(result.number("flow rate out through outlet"), q), 0.005) << "n = " << n;
+  // Momentum balance of developed flow (Bird, Stewart & Lightfoot 2002, sec. 2.2): the walls hold
+  // the fluid against the pressure force, F_x = -dp H = -2 N/m in total, 1 N/m per wall, within 0.5%.
+  EXPECT_LT(relative(result.number("x force on the fluid from bottom wall"), -1.), 0.005);
+  EXPECT_LT(relative(result.number("x force on the fluid from top wall"), -1.), 0.005);
   // Analytic (virtual power): power input = viscous dissipation, within 0.5%.
   EXPECT_LT(relative(result.number("power input through boundaries"), result.number("viscous dissipation")), 0.005);
 }
@@ -119,6 +123,8 @@ TEST_P(PowerLawPipe, FlowRateAndEnergyBalance)
   const auto   result = run_case("power_law_pipe", pipe_case(power_law(n), 3));
   ASSERT_TRUE(result.converged) << result.reason;
   EXPECT_LT(relative(result.number("flow rate out through outlet"), Q), 0.005) << "n = " << n;
+  // Momentum balance (Bird, Stewart & Lightfoot 2002, sec. 2.3): F_z = -dp pi R^2 = -2 pi N, within 0.5%.
+  EXPECT_LT(relative(result.number("axial force on the fluid from wall"), -2. * M_PI), 0.005);
   EXPECT_LT(relative(result.number("power input through boundaries"), result.number("viscous dissipation")), 0.005);
 }
 
