@@ -101,6 +101,9 @@ namespace lentus::input
     schema.declare("Output/Folder", "", ValueKind::text(),
                    "Folder for the results; default out/<case name> next to the working directory.");
     schema.declare("Output/Write fields", "true", ValueKind::boolean(), "Write VTU/PVD field files.");
+    schema.declare("Output/Write pictures", "true", ValueKind::boolean(),
+                   "lentus run: draw PNG pictures and report.html into the folder (scripts/draw_case.py, needs "
+                   "python3-matplotlib); not in sweeps.");
   }
 
   FlowCase read_flow_case(const CaseFile &file)

@@ -1,0 +1,228 @@
+"""Reading a Lentus case folder: summary.json, case.prm, log.txt, exit_profile.csv
+and the fields (fields.pvd -> .pvtu -> .vtu pieces, ASCII or base64, zlib or not).
+
+Only the standard library and numpy: the folder can be read without matplotlib.
+"""
+import base64
+import csv
+import json
+import os
+import re
+import xml.etree.ElementTree as ElementTree
+import zlib
+
+import numpy
+
+_VTK_TYPES = {"Float32": "<f4", "Float64": "<f8", "Int8": "<i1", "UInt8": "<u1", "Int16": "<i2",
+              "UInt16": "<u2", "Int32": "<i4", "UInt32": "<u4", "Int64": "<i8", "UInt64": "<u8"}
+
+
+def read_summary(folder):
+    with open(os.path.join(folder, "summary.json"), encoding="utf-8") as handle:
+        return json.load(handle)
+
+
+def read_case(folder):
+    """case.prm as {"Section/Subsection/Key": value} and the list of keys set to a
+    value other than the default (deal.II marks those with '# default: ...')."""
+    values, changed, stack = {}, [], []
+    path = os.path.join(folder, "case.prm")
+    if not os.path.exists(path):
+        return values, changed
+    with open(path, encoding="utf-8") as handle:
+        for line in handle:
+            text = line.strip()
+            if not text or text.startswith("#"):
+                continue
+            if text.startswith("subsection "):
+                stack.append(text[len("subsection "):].split("#")[0].strip())
+            elif text == "end" or text.startswith("end "):
+                if stack:
+                    stack.pop()
+            elif text.startswith("set "):
+                key, _, rest = text[4:].partition("=")
+                value, _, comment = rest.partition("#")
+                name = "/".join(stack + [key.strip()])
+                values[name] = value.strip()
+                if comment.strip().startswith("default:"):
+                    changed.append(name)
+    return values, changed
+
+
+def read_log(folder):
+    """log.txt: the mesh line and every nonlinear iteration, grouped in solves
+    (a continuation makes several). Returns (lines, solves); a solve is a dict with
+    'label', 'initial' residual and 'iterations' [(kind, residual, step, linear)]."""
+    path = os.path.join(folder, "log.txt")
+    if not os.path.exists(path):
+        return [], []
+    with open(path, encoding="utf-8") as handle:
+        lines = handle.read().splitlines()
+    solves, label = [], "direct solve"
+    step = re.compile(r"^\s*\d+\s+(Picard|Newton)\s+residual\s+(\S+)\s+step\s+(\S+)\s+linear iterations\s+(\S+)")
+    for line in lines:
+        if line.startswith("Continuation in "):
+            label = None
+        elif line.startswith(" ") and not line.startswith("  ") and "=" in line:
+            label = line.strip()  # " Regularization exponent = 10": one continuation step
+        match_initial = re.match(r"^\s*initial residual\s+(\S+)", line)
+        if match_initial:
+            solves.append({"label": label or "solve", "initial": float(match_initial.group(1)), "iterations": []})
+            continue
+        match = step.match(line)
+        if match and solves:
+            solves[-1]["iterations"].append((match.group(1), float(match.group(2)), float(match.group(3)),
+                                             float(match.group(4))))
+    return lines, solves
+
+
+def read_exit_profile(folder):
+    """exit_profile.csv as (header, array) or None."""
+    path = os.path.join(folder, "exit_profile.csv")
+    if not os.path.exists(path):
+        return None
+    with open(path, newline="", encoding="utf-8") as handle:
+        rows = list(csv.reader(handle))
+    if len(rows) < 2:
+        return None
+    return rows[0], numpy.array([[float(value) for value in row] for row in rows[1:] if row], dtype=float)
+
+
+def _decode_binary(text, dtype, compressed, header_type):
+    """One base64 DataArray of the VTK XML format, with or without zlib blocks."""
+    header_size = numpy.dtype(header_type).itemsize
+    text = "".join(text.split())
+    if not compressed:
+        raw = base64.b64decode(text)
+        n_bytes = int(numpy.frombuffer(raw[:header_size], dtype=header_type)[0])
+        return numpy.frombuffer(raw[header_size:header_size + n_bytes], dtype=dtype)
+    # The header (number of blocks, block size, last block size, compressed sizes) is encoded
+    # on its own; its first three entries fill a whole number of base64 quanta when 4-byte.
+    first = base64.b64decode(text[:4 * ((3 * header_size + 2) // 3)])
+    n_blocks = int(numpy.frombuffer(first[:header_size], dtype=header_type)[0])
+    header_bytes = (3 + n_blocks) * header_size
+    header_chars = 4 * ((header_bytes + 2) // 3)
+    header = numpy.frombuffer(base64.b64decode(text[:header_chars])[:header_bytes], dtype=header_type)
+    sizes = [int(size) for size in header[3:3 + n_blocks]]
+    try:
+        data = base64.b64decode(text[header_chars:])
+    except ValueError:
+        data = base64.b64decode(text)[header_bytes:]  # header and data encoded together
+    blocks, offset = [], 0
+    for size in sizes:
+        blocks.append(zlib.decompress(data[offset:offset + size]))
+        offset += size
+    return numpy.frombuffer(b"".join(blocks), dtype=dtype)
+
+
+def _data_array(element, compressed, header_type):
+    dtype = _VTK_TYPES[element.get("type", "Float32")]
+    components = int(element.get("NumberOfComponents", "1"))
+    form = element.get("format", "ascii")
+    if form == "ascii":
+        values = numpy.array((element.text or "").split(), dtype=float).astype(dtype)
+    elif form == "binary":
+        values = _decode_binary(element.text or "", dtype, compressed, header_type)
+    else:
+        raise ValueError("VTU data format '%s' is not read here (ascii or binary only)" % form)
+    return values.reshape(-1, components) if components > 1 else values
+
+
+def _read_piece(path):
+    root = ElementTree.parse(path).getroot()
+    compressed = root.get("compressor", "") != ""
+    header_type = _VTK_TYPES[root.get("header_type", "UInt32")]
+    piece = root.find("UnstructuredGrid/Piece")
+    points = _data_array(piece.find("Points/DataArray"), compressed, header_type)
+    cells = {array.get("Name"): _data_array(array, compressed, header_type) for array in piece.find("Cells")}
+    fields = {}
+    point_data = piece.find("PointData")
+    if point_data is not None:
+        for array in point_data:
+            fields[array.get("Name")] = _data_array(array, compressed, header_type).astype(float)
+    offsets = cells["offsets"].astype(int)
+    types = cells["types"].astype(int)
+    connectivity = cells["connectivity"].astype(int)
+    if not numpy.all(types == 9) or not numpy.all(numpy.diff(numpy.concatenate(([0], offsets))) == 4):
+        raise ValueError("%s: only quadrilateral cells (VTK type 9) are drawn" % path)
+    return points[:, :2].astype(float), connectivity.reshape(-1, 4), fields
+
+
+def _piece_files(folder):
+    pvd = os.path.join(folder, "fields.pvd")
+    if not os.path.exists(pvd):
+        return []
+    records = [element.get("file") for element in ElementTree.parse(pvd).getroot().iter("DataSet")]
+    pieces = []
+    for record in records[-1:]:
+        path = os.path.join(folder, record)
+        if record.endswith(".pvtu"):
+            for piece in ElementTree.parse(path).getroot().iter("Piece"):
+                pieces.append(os.path.join(os.path.dirname(path), piece.get("Source")))
+        else:
+            pieces.append(path)
+    return pieces
+
+
+class Fields:
+    """The fields of a case on one quadrilateral mesh with every point once
+    (points shared by neighbouring patches merged, their values averaged)."""
+
+    def __init__(self, points, quads, values):
+        self.points, self.quads, self.values = points, quads, values
+
+    def has(self, name):
+        return name in self.values
+
+    def __getitem__(self, name):
+        return self.values[name]
+
+    def triangles(self):
+        return numpy.concatenate([self.quads[:, [0, 1, 2]], self.quads[:, [0, 2, 3]]])
+
+    def boundary_edges(self):
+        """Edges of the quadrilaterals that belong to one quadrilateral only."""
+        edges = numpy.concatenate([self.quads[:, [i, (i + 1) % 4]] for i in range(4)])
+        edges.sort(axis=1)
+        unique, counts = numpy.unique(edges, axis=0, return_counts=True)
+        return unique[counts == 1]
+
+
+def read_fields(folder):
+    """The fields of the last record of fields.pvd, or None if there are none."""
+    pieces = _piece_files(folder)
+    if not pieces:
+        return None
+    all_points, all_quads, all_values, offset = [], [], {}, 0
+    for path in pieces:
+        points, quads, values = _read_piece(path)
+        all_points.append(points)
+        all_quads.append(quads + offset)
+        offset += len(points)
+        for name, value in values.items():
+            all_values.setdefault(name, []).append(value)
+    points = numpy.concatenate(all_points)
+    quads = numpy.concatenate(all_quads)
+    values = {name: numpy.concatenate(parts) for name, parts in all_values.items()}
+    # Merge coincident points (a tolerance of 1e-9 of the extent).
+    extent = max(float(numpy.ptp(points[:, 0])), float(numpy.ptp(points[:, 1])), 1e-300)
+    keys = numpy.round((points - points.min(axis=0)) / (extent * 1e-9)).astype(numpy.int64)
+    _, first, inverse = numpy.unique(keys, axis=0, return_index=True, return_inverse=True)
+    inverse = inverse.reshape(-1)
+    counts = numpy.bincount(inverse)
+    merged = {}
+    for name, value in values.items():
+        if value.ndim == 1:
+            merged[name] = numpy.bincount(inverse, weights=value) / counts
+        else:
+            merged[name] = numpy.stack([numpy.bincount(inverse, weights=value[:, c]) / counts
+                                        for c in range(value.shape[1])], axis=1)
+    return Fields(points[first], inverse[quads], merged)
+
+
+def design_number_text(value):
+    """A design number as the report prints it: 6 significant digits."""
+    if value is None:
+        return "not computed"
+    return "%.6g" % value
+
