@@ -52,9 +52,11 @@ class Case:
         self.swirl = self.fields is not None and self.fields.has("swirl_velocity")
         law = self.inputs.get("Rheology/Viscosity law", self.summary.get("viscosity law", ""))
         self.yield_stress = self.real("Rheology/%s/Yield stress" % law, 0.)
+        # Dead zones are drawn where the case reports them (vessels), with its speed fraction.
         self.dead_fraction = None
-        for key, value in self.inputs.items():
-            if "dead" in key.lower() and "fraction" in key.lower():
+        reports_dead_zones = any("dead-zone" in name for name in self.numbers)
+        for key in self.inputs:
+            if reports_dead_zones and "dead" in key.lower() and "fraction" in key.lower():
                 fraction = self.real(key, None)
                 if fraction is not None and 0. < fraction < 1.:
                     self.dead_fraction = fraction
@@ -113,7 +115,13 @@ class View:
         else:
             self.axes_size = (7.5, 2.4) if ratio < 1. else (3.0, 7.0)
         self.grid, self.extent, self.finder = None, None, None
+        # Room above the part for the legend of the unyielded and dead-zone overlays.
+        self.legend_rows = (2 if case.yield_stress > 0. else 0) + (2 if case.dead_fraction is not None else 0)
         edges = fields.boundary_edges()
+        if self.mirror:  # the axis lies inside the mirrored picture
+            size = max(numpy.ptp(fields.points[:, 0]), numpy.ptp(fields.points[:, 1]))
+            on_axis = numpy.abs(fields.points[:, 0]) <= 1e-9 * size
+            edges = edges[~(on_axis[edges[:, 0]] & on_axis[edges[:, 1]])]
         outline = numpy.stack([fields.points[edges[:, 0]], fields.points[edges[:, 1]]], axis=1)
         if self.mirror:
             outline = numpy.concatenate([outline, outline * [-1., 1.]])
@@ -162,7 +170,7 @@ class View:
         import matplotlib.pyplot as pyplot
         ratio = self.height / max(self.width, 1e-300)
         axes_width, axes_height = self.axes_size
-        left, bottom, top = 0.95, 0.6, 0.7
+        left, bottom, top = 0.95, 0.6, 0.7 + 0.19 * self.legend_rows
         below, beside = (0.85, 0.0) if self.horizontal_colorbar else (0.0, 1.3)
         width, height = left + axes_width + 0.3 + beside, bottom + below + axes_height + top
         figure = pyplot.figure(figsize=(width, height), dpi=110)
@@ -188,6 +196,12 @@ class View:
             line = axes.axhline if self.transpose else axes.axvline
             line(0., color="0.5", lw=0.8, ls="-.", zorder=5)
         return figure, axes
+
+    def legend_above(self, axes, handles):
+        """The overlay legend between the title and the part: it hides nothing."""
+        axes.legend(handles=handles, fontsize=8, loc="lower center", bbox_to_anchor=(0.5, 1.0), frameon=False,
+                    borderaxespad=0.2)
+        axes.set_title(axes.get_title(), fontsize=10, pad=4 + 13 * len(handles))
 
     def colorbar(self, figure, axes, mappable, label):
         bar = figure.colorbar(mappable, cax=figure.add_axes(self.colorbar_box),
@@ -247,16 +261,24 @@ def draw_yield_overlay(case, view, axes, handles):
         reference = case.number(["tip speed"])
         speed = view.scalar(fields["speed"])
         reference_speed = reference[1] if reference else float(speed.max())
-        dead = (speed < case.dead_fraction * reference_speed).astype(float)
+        slow = (speed < case.dead_fraction * reference_speed).astype(float)
+        dead = slow
         if case.yield_stress > 0. and fields.has("von_Mises_stress"):
-            dead = numpy.maximum(dead, (view.scalar(fields["von_Mises_stress"]) < case.yield_stress).astype(float))
+            unyielded = (view.scalar(fields["von_Mises_stress"]) < case.yield_stress).astype(float)
+            dead = numpy.maximum(slow, unyielded)
+            slow = slow * (1. - unyielded)  # dotted only where not hatched already
         if dead.max() > 0.5:
-            axes.tricontourf(view.triangulation, dead, levels=[0.5, 1.5], colors="none", hatches=["...."], zorder=3)
+            if slow.max() > 0.5:
+                axes.tricontourf(view.triangulation, slow, levels=[0.5, 1.5], colors="none", hatches=["...."],
+                                 zorder=3)
             axes.tricontour(view.triangulation, dead, levels=[0.5], colors="black", linewidths=1.0,
                             linestyles="dashed", zorder=4)
-            handles.append(Patch(facecolor="none", hatch="....", edgecolor="black",
-                                 label="dead zone: unyielded or slower than %g of %s" % (
-                                     case.dead_fraction, "the tip speed" if reference else "the maximum speed")))
+            handles.append(Line2D([], [], color="black", lw=1.0, ls="--",
+                                  label="dead zone outline: unyielded or slower than %g of %s" % (
+                                      case.dead_fraction, "the tip speed" if reference else "the maximum speed")))
+            if slow.max() > 0.5:
+                handles.append(Patch(facecolor="none", hatch="....", edgecolor="black",
+                                     label="dotted: yielded but slow (dead)"))
             drawn.append("dead zone")
     return drawn
 
@@ -297,7 +319,7 @@ def picture_flow_map(case, view, path):
     handles = []
     drawn = draw_yield_overlay(case, view, axes, handles)
     if handles:
-        axes.legend(handles=handles, fontsize=8, framealpha=0.9, loc="best")
+        view.legend_above(axes, handles)
     save(figure, path)
     caption = "Speed with streamlines of the in-plane flow" if drew_lines else \
         "Speed (no in-plane flow to draw streamlines of)"
@@ -326,7 +348,7 @@ def picture_scalar(case, view, path, name, title, label, colour_map, logarithmic
     handles = []
     drawn = draw_yield_overlay(case, view, axes, handles) if name == "swirl_speed" else []
     if handles:
-        axes.legend(handles=handles, fontsize=8, framealpha=0.9, loc="best")
+        view.legend_above(axes, handles)
     save(figure, path)
     return drawn
 
