@@ -323,9 +323,12 @@ def picture_flow_map(case, view, path):
     save(figure, path)
     caption = "Speed with streamlines of the in-plane flow" if drew_lines else \
         "Speed (no in-plane flow to draw streamlines of)"
-    if drawn:
-        caption += "; hatched: " + ", ".join(drawn) + " (|tau| = tau_y contour from the regularized law)"
-    elif case.yield_stress > 0.:
+    if "cavern outline" in drawn:
+        caption += ("; cross-hatched: unyielded (|tau| < tau_y); black line: the yield surface |tau| = tau_y "
+                    "(cavern outline), from the regularized law")
+    if "dead zone" in drawn:
+        caption += "; dashed: dead-zone outline (unyielded or slower than the case's speed fraction)"
+    if case.yield_stress > 0. and "cavern outline" not in drawn:
         caption += "; the whole fluid is yielded (|tau| > tau_y everywhere)"
     return caption
 
