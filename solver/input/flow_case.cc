@@ -1,5 +1,6 @@
 #include "solver/input/flow_case.h"
 
+#include "meshes/gmsh_mesh.h"
 #include "solver/errors.h"
 
 #include <algorithm>
@@ -52,8 +53,15 @@ namespace lentus::input
                          ValueKind::real(parameter.range),
                          parameter.symbol + " [" + parameter.unit + "]: " + parameter.meaning + ".");
       }
+    shape_names.push_back(meshes::gmsh_mesh_shape);
+    schema.declare("Geometry/" + meshes::gmsh_mesh_shape + "/File", "", ValueKind::text(),
+                   "Path of a 2D quadrilateral mesh saved by Gmsh (MSH 2.2 or 4.1, ASCII), relative to the case "
+                   "file's folder; the names of its physical curves are the boundary roles.");
+    schema.declare("Geometry/" + meshes::gmsh_mesh_shape + "/Scale", "1", ValueKind::real(Range::above(0.)),
+                   "Length of one mesh unit [m], e.g. 0.001 for a mesh drawn in millimetres.");
     schema.declare("Geometry/Shape", "", ValueKind::selection(shape_names),
-                   "Which shape; its dimensions are set in the subsection of the same name.");
+                   "Which shape; its dimensions (for Gmsh mesh: the mesh file) are set in the subsection of the "
+                   "same name.");
     schema.declare("Geometry/Refinement", "3", ValueKind::integer(0, 12),
                    "Number of uniform refinements of the coarse mesh (each halves the cell size).");
 
@@ -75,6 +83,9 @@ namespace lentus::input
     schema.declare(conditions + "Inflow rates", "", ValueKind::real_list(Range::any()),
                    "Q into the domain for each role listed under Inflow, in order: [m^3/s] axisymmetric, "
                    "[m^2/s] per metre of depth planar.");
+    schema.declare(conditions + "Inflow mass rates", "", ValueKind::real_list(Range::any()),
+                   "Instead of Inflow rates: mass flow rate into the domain for each role listed under Inflow, in "
+                   "order: [kg/s] axisymmetric, [kg/(s m)] per metre of depth planar; divided by Rheology/Density.");
     schema.declare(conditions + "Wall velocity", "0, 0", ValueKind::real_list(Range::any()),
                    "[m/s] velocity of the moving walls, two mesh components (x, y) or (r, z).");
     schema.declare(conditions + "Rotation rate", "0", ValueKind::real(Range::any()),
@@ -106,12 +117,10 @@ namespace lentus::input
                    "python3-matplotlib); not in sweeps.");
   }
 
-  FlowCase read_flow_case(const CaseFile &file)
+  void read_geometry(const CaseFile &file, FlowCase &flow)
   {
-    FlowCase flow;
     flow.case_file = file.file_name();
     flow.case_name = std::filesystem::path(file.file_name()).stem().string();
-    flow.fluid     = read_fluid(file);
 
     flow.shape_name = file.get("Geometry/Shape");
     if (flow.shape_name.empty())
@@ -119,19 +128,45 @@ namespace lentus::input
         std::string list;
         for (const meshes::ShapeInfo &shape : meshes::shapes())
           list += (list.empty() ? "" : ", ") + shape.name;
-        file.fail("Geometry/Shape", "missing", "one of " + list);
+        file.fail("Geometry/Shape", "missing", "one of " + list + ", " + meshes::gmsh_mesh_shape);
       }
-    const meshes::ShapeInfo &shape = meshes::find_shape(flow.shape_name);
-    const std::string        shape_section = "Geometry/" + shape.name + "/";
-    for (const rheology::ParameterInfo &parameter : shape.parameters)
-      flow.shape_values.push_back(file.get_real(shape_section + parameter.key));
-    try
+    const meshes::GmshMesh *imported = nullptr;
+    if (flow.shape_name == meshes::gmsh_mesh_shape)
       {
-        flow.geometry = shape.create(flow.shape_values);
+        const std::string key  = "Geometry/" + meshes::gmsh_mesh_shape + "/File";
+        const std::string name = file.get(key);
+        if (name.empty())
+          file.fail(key, "missing", "the path of a Gmsh .msh file, relative to the case file's folder");
+        // Relative to the case file, not to the working directory.
+        flow.mesh_file = (std::filesystem::path(file.file_name()).parent_path() / name).lexically_normal().string();
+        if (std::filesystem::path(name).is_absolute())
+          flow.mesh_file = name;
+        try
+          {
+            auto mesh = std::make_unique<meshes::GmshMesh>(
+              flow.mesh_file, file.get_real("Geometry/" + meshes::gmsh_mesh_shape + "/Scale"));
+            imported      = mesh.get();
+            flow.geometry = std::move(mesh);
+          }
+        catch (const rheology::InvalidParameter &error)
+          {
+            file.fail(key, error.problem, error.allowed);
+          }
       }
-    catch (const rheology::InvalidParameter &error)
+    else
       {
-        file.fail(shape_section + error.key, error.problem, error.allowed);
+        const meshes::ShapeInfo &shape         = meshes::find_shape(flow.shape_name);
+        const std::string        shape_section = "Geometry/" + shape.name + "/";
+        for (const rheology::ParameterInfo &parameter : shape.parameters)
+          flow.shape_values.push_back(file.get_real(shape_section + parameter.key));
+        try
+          {
+            flow.geometry = shape.create(flow.shape_values);
+          }
+        catch (const rheology::InvalidParameter &error)
+          {
+            file.fail(shape_section + error.key, error.problem, error.allowed);
+          }
       }
     flow.refinement = static_cast<unsigned int>(file.get_real("Geometry/Refinement"));
 
@@ -141,10 +176,30 @@ namespace lentus::input
                                                          FormulationKind::swirl;
     const meshes::Symmetry symmetry = flow.geometry->symmetry();
     if (symmetry == meshes::Symmetry::planar_only && is_axisymmetric(flow.formulation))
-      file.fail("Flow/Formulation", "shape " + shape.name + " is planar", "planar");
+      file.fail("Flow/Formulation", "shape " + flow.shape_name + " is planar", "planar");
     if (symmetry == meshes::Symmetry::axisymmetric_only && !is_axisymmetric(flow.formulation))
-      file.fail("Flow/Formulation", "shape " + shape.name + " is axisymmetric",
+      file.fail("Flow/Formulation", "shape " + flow.shape_name + " is axisymmetric",
                 "axisymmetric, or axisymmetric with swirl");
+    if (imported && is_axisymmetric(flow.formulation))
+      {
+        const std::string problem = imported->negative_radius();
+        if (!problem.empty())
+          file.fail("Geometry/" + meshes::gmsh_mesh_shape + "/File",
+                    problem + ", but Flow/Formulation = " + formulation + " takes x as the radius r",
+                    "a mesh with x >= 0 (the axis at x = 0), or Flow/Formulation = planar");
+      }
+    flow.velocity_degree = static_cast<unsigned int>(file.get_real("Flow/Velocity degree"));
+  }
+
+  FlowCase read_flow_case(const CaseFile &file)
+  {
+    FlowCase flow;
+    flow.fluid = read_fluid(file);
+    read_geometry(file, flow);
+    // "shape Channel", or "Gmsh mesh meshes/die.msh" in messages.
+    const std::string shape_name = flow.mesh_file.empty() ?
+                                     "shape " + flow.shape_name :
+                                     "Gmsh mesh " + file.get("Geometry/" + meshes::gmsh_mesh_shape + "/File");
 
     flow.inertia = file.get("Flow/Inertia") == "true";
     const auto gravity = split_list(file.get("Flow/Gravity"));
@@ -154,7 +209,6 @@ namespace lentus::input
     flow.gravity[1] = *parse_real(gravity[1]);
     if ((flow.inertia || flow.gravity[0] != 0. || flow.gravity[1] != 0.) && std::isnan(flow.fluid.density))
       file.fail("Rheology/Density", "missing; inertia and gravity need it", "a density > 0 kg/m^3");
-    flow.velocity_degree = static_cast<unsigned int>(file.get_real("Flow/Velocity degree"));
 
     // Boundary conditions: every listed role exists, every role gets exactly one condition.
     std::map<std::string, std::string> assigned; // role -> key that assigned it
@@ -166,9 +220,20 @@ namespace lentus::input
     for (const std::string &value : split_list(file.get(conditions + "Pressure values")))
       pressures.push_back(*parse_real(value));
     unsigned int        pressure_index = 0;
+    // Inflow rates by volume, or by mass divided by the density.
+    const std::string   mass_key  = conditions + "Inflow mass rates";
+    const std::string   rates_key = file.is_set(mass_key) ? mass_key : conditions + "Inflow rates";
+    const double        per_rate  = rates_key == mass_key ? 1. / flow.fluid.density : 1.;
+    if (rates_key == mass_key && file.is_set(conditions + "Inflow rates"))
+      file.fail(mass_key, "Inflow rates is set too (line " + std::to_string(file.line_of(conditions + "Inflow rates")) +
+                            ")",
+                "either Inflow rates [m^3/s] or Inflow mass rates [kg/s], one value per role under Inflow");
+    if (rates_key == mass_key && std::isnan(flow.fluid.density))
+      file.fail(mass_key, "a mass rate needs the fluid's density, and Rheology/Density is not set",
+                "Rheology/Density [kg/m^3] set, or volume rates under Inflow rates instead");
     std::vector<double> inflow_rates;
-    for (const std::string &value : split_list(file.get(conditions + "Inflow rates")))
-      inflow_rates.push_back(*parse_real(value));
+    for (const std::string &value : split_list(file.get(rates_key)))
+      inflow_rates.push_back(*parse_real(value) * per_rate);
     unsigned int inflow_index = 0;
     for (const ConditionKey &condition : condition_keys)
       {
@@ -176,13 +241,23 @@ namespace lentus::input
         for (const std::string &role : split_list(file.get(key)))
           {
             if (std::find(roles.begin(), roles.end(), role) == roles.end())
-              file.fail(key, "'" + role + "' is not a boundary role of shape " + shape.name,
+              file.fail(key, "'" + role + "' is not a boundary role of " + shape_name,
                         "role names among " + role_list);
             if (assigned.count(role))
               file.fail(key, "role '" + role + "' already has a condition (" + assigned[role] + ")",
                         "one condition per role");
             if (condition.type == BoundaryCondition::Type::axis && !is_axisymmetric(flow.formulation))
               file.fail(key, "an axis condition needs an axisymmetric formulation", "no Axis roles when planar");
+            if (const auto *imported = dynamic_cast<const meshes::GmshMesh *>(flow.geometry.get()))
+              if (condition.type == BoundaryCondition::Type::pressure ||
+                  condition.type == BoundaryCondition::Type::symmetry ||
+                  condition.type == BoundaryCondition::Type::inflow)
+                {
+                  const std::string problem = imported->not_axis_parallel(role);
+                  if (!problem.empty())
+                    file.fail(key, problem + " in " + shape_name,
+                              "for Pressure, Symmetry and Inflow: roles whose sides all run along x or all along y");
+                }
             assigned[role] = condition.key;
             BoundaryCondition bc{role, condition.type, 0.};
             if (condition.type == BoundaryCondition::Type::pressure)
@@ -195,7 +270,7 @@ namespace lentus::input
             if (condition.type == BoundaryCondition::Type::inflow)
               {
                 if (inflow_index >= inflow_rates.size())
-                  file.fail(conditions + "Inflow rates", "fewer values than roles under Inflow",
+                  file.fail(rates_key, "fewer values than roles under Inflow",
                             "one flow rate per role, in order");
                 bc.flow_rate = inflow_rates[inflow_index++];
               }
@@ -206,10 +281,10 @@ namespace lentus::input
       file.fail(conditions + "Pressure values", "more values than roles under Pressure",
                 "one pressure [Pa] per role, in order");
     if (inflow_index != inflow_rates.size())
-      file.fail(conditions + "Inflow rates", "more values than roles under Inflow", "one flow rate per role, in order");
+      file.fail(rates_key, "more values than roles under Inflow", "one flow rate per role, in order");
     for (const std::string &role : roles)
       if (!assigned.count(role))
-        file.fail(conditions + "No-slip", "boundary role '" + role + "' of shape " + shape.name + " has no condition",
+        file.fail(conditions + "No-slip", "boundary role '" + role + "' of " + shape_name + " has no condition",
                   "every role (" + role_list + ") listed under exactly one of No-slip, Moving wall, Pressure, "
                   "Traction-free, Symmetry, Axis, Inflow");
     const auto wall_velocity = split_list(file.get(conditions + "Wall velocity"));

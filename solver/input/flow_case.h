@@ -41,7 +41,8 @@ namespace lentus::input
     std::string                        case_name;   ///< file name without folder and extension
     Fluid                              fluid;
     std::string                        shape_name;
-    std::vector<double>                shape_values;
+    std::vector<double>                shape_values;  ///< dimensions of a catalogue shape
+    std::string                        mesh_file;     ///< Gmsh mesh: the file, as found from the working directory
     std::unique_ptr<meshes::Geometry>  geometry;
     unsigned int                       refinement = 0;
     FormulationKind                    formulation = FormulationKind::planar;
@@ -69,4 +70,9 @@ namespace lentus::input
 
   /// Reads and validates a flow case; throws InputError with file, line and key.
   FlowCase read_flow_case(const CaseFile &file);
+
+  /// Reads only what the mesh needs into `flow` (case name, shape, dimensions or mesh
+  /// file, refinement, formulation, velocity degree), checked as read_flow_case does;
+  /// no fluid or boundary conditions are needed. Throws InputError.
+  void read_geometry(const CaseFile &file, FlowCase &flow);
 } // namespace lentus::input
