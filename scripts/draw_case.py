@@ -517,7 +517,8 @@ def picture_flow_curve(case, path):
     if case.yield_stress > 0.:
         stress_axes.axhline(case.yield_stress, color="#CC79A7", lw=1.0, ls="--",
                             label="yield stress %g Pa" % case.yield_stress)
-    stress_axes.legend(fontsize=7, loc="best")
+    if stress_axes.get_legend_handles_labels()[0]:
+        stress_axes.legend(fontsize=7, loc="best")
     law = case.summary.get("viscosity law", "")
     figure.suptitle("Flow curve of the fluid: %s%s" % (law, ", T = %g K" % temperature if temperature else ""),
                     fontsize=11)
@@ -556,8 +557,8 @@ def picture_convergence(case, path):
                        label="target (tolerances)" if solve_number == 0 else None)
         if len(case.solves) > 1:
             top.axvline(index, color="0.6", lw=0.7, ls=":")
-            top.text(index, top.get_ylim()[1] if solve_number else ys[0], " " + solve["label"], fontsize=7,
-                     rotation=90, va="top")
+            top.text(index, 0.98, " " + solve["label"], fontsize=7, rotation=90, va="top",
+                     transform=top.get_xaxis_transform())
         index = xs[-1] + 1
     status = case.summary.get("status", "")
     top.set_ylabel("residual norm")

@@ -53,7 +53,7 @@ def expected_pictures(folder):
             head = handle.read(4000)
         if 'Name="swirl_velocity"' in head:
             names.append("swirl_speed.png")
-    if os.path.exists(os.path.join(folder, "exit_profile.csv")):
+    if pvtu and os.path.exists(os.path.join(folder, "exit_profile.csv")):
         names.append("die_profiles.png")
     return names
 
