@@ -10,6 +10,7 @@ namespace lentus::cli
   int fit_command(int argc, const char *const *argv, int first);
   int run_command(int argc, const char *const *argv, int first);
   int starter_command(int argc, const char *const *argv, int first);
+  int mesh_command(int argc, const char *const *argv, int first);
   int sweep_command(int argc, const char *const *argv, int first);
   int collect_command(int argc, const char *const *argv, int first);
 } // namespace lentus::cli

@@ -24,6 +24,7 @@ commands:
   flow-curve   print (and draw) the flow curve of the fluid in a case file
   run          solve the flow in a case file and write its results folder
   starter      print a commented starter case for a shape
+  mesh         write and describe the mesh of a case (cells, unknowns, boundary roles) without solving
   check        validate a case file (or a sweep file) without solving
   sweep        run every case of a sweep file, on MPI ranks, resumable; one results table
   collect      merge the finished cases of a sweep into its results table
@@ -63,6 +64,8 @@ int main(int argc, char **argv)
         return cli::starter_command(argc, argv, 2);
       if (command == "check")
         return cli::check_command(argc, argv, 2);
+      if (command == "mesh")
+        return cli::mesh_command(argc, argv, 2);
       if (command == "fit")
         return cli::fit_command(argc, argv, 2);
       if (command == "sweep")
@@ -70,7 +73,7 @@ int main(int argc, char **argv)
       if (command == "collect")
         return cli::collect_command(argc, argv, 2);
       throw InputError("command line", 0,
-                       "unknown command '" + command + "'; allowed: laws, flow-curve, run, starter, check, fit, sweep, collect (see lentus --help)");
+                       "unknown command '" + command + "'; allowed: laws, flow-curve, run, starter, mesh, check, fit, sweep, collect (see lentus --help)");
     }
   catch (const InputError &error)
     {
