@@ -328,11 +328,11 @@ def picture_convergence(case, path):
                      transform=top.get_xaxis_transform())
         index = xs[-1] + 1
     status = case.summary.get("status", "")
-    top.set_ylabel("residual norm")
+    top.set_ylabel("residual norm [%s]" % ("N/rad" if case.axisymmetric else "N/m"))
     top.set_title("Convergence of the nonlinear solve: %s" % status, fontsize=10)
     top.grid(True, which="both", alpha=0.3)
     top.legend(fontsize=8, loc="best")
-    bottom.set_ylabel("step length")
+    bottom.set_ylabel("step length [-]")
     bottom.set_xlabel("nonlinear iteration (each solve starts with its initial residual)")
     bottom.set_ylim(0., 1.1)
     bottom.grid(True, alpha=0.3)
