@@ -1,6 +1,7 @@
 #include "meshes/geometry.h"
 
 #include "meshes/shapes/basic_shapes.h"
+#include "meshes/shapes/obstacle_shapes.h"
 #include "meshes/shapes/round_die.h"
 
 namespace lentus::meshes
@@ -36,6 +37,8 @@ namespace lentus::meshes
       std::vector<ShapeInfo> all = basic_shapes();
       all.push_back(round_die_shape());
       all.push_back(slit_die_shape());
+      all.push_back(cylinder_in_channel_shape());
+      all.push_back(sphere_in_tube_shape());
       return all;
     }();
     return catalogue;
