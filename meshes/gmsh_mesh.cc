@@ -314,6 +314,21 @@ namespace lentus::meshes
     return "";
   }
 
+  std::array<double, 4> GmshMesh::role_box(const std::string &role) const
+  {
+    const dealii::types::boundary_id id  = id_of_role(role);
+    std::array<double, 4>            box = {{HUGE_VAL, -HUGE_VAL, HUGE_VAL, -HUGE_VAL}};
+    for (const dealii::CellData<1> &line : data->boundary.boundary_lines)
+      if (line.boundary_id == id)
+        for (const unsigned int v : line.vertices)
+          for (unsigned int d = 0; d < 2; ++d)
+            {
+              box[2 * d]     = std::min(box[2 * d], data->vertices[v][d]);
+              box[2 * d + 1] = std::max(box[2 * d + 1], data->vertices[v][d]);
+            }
+    return box;
+  }
+
   std::map<unsigned int, std::string> GmshMesh::material_names() const
   {
     return data->materials;

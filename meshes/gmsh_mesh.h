@@ -5,6 +5,7 @@
 
 #include "meshes/geometry.h"
 
+#include <array>
 #include <map>
 #include <memory>
 #include <string>
@@ -41,6 +42,9 @@ namespace lentus::meshes
     /// "" if every side of `role` is parallel to one and the same coordinate axis;
     /// else which side is not (pressure, symmetry and inflow conditions need that).
     std::string not_axis_parallel(const std::string &role) const;
+
+    /// The smallest box {x_min, x_max, y_min, y_max} [m] holding every side of `role`.
+    std::array<double, 4> role_box(const std::string &role) const;
 
     /// Names of the physical surfaces by material id (cells outside any have id 0).
     std::map<unsigned int, std::string> material_names() const;

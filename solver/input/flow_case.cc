@@ -39,6 +39,39 @@ namespace lentus::input
     };
 
     const std::string conditions = "Boundary conditions/";
+
+    /// `complete` (a case's complete text) with the Gmsh mesh file given by its absolute path.
+    std::string with_absolute_mesh_file(std::string complete, const std::string &mesh_file)
+    {
+      const auto section = complete.find("subsection " + meshes::gmsh_mesh_shape + "\n");
+      const auto key     = section == std::string::npos ? section : complete.find("set File", section);
+      const auto equals  = key == std::string::npos ? key : complete.find('=', key);
+      if (equals == std::string::npos)
+        return complete;
+      const auto end = complete.find_first_of("#\n", equals);
+      return complete.replace(equals, end - equals,
+                              "= " + std::filesystem::absolute(mesh_file).lexically_normal().string() + " ");
+    }
+
+    /// The developed inflow profile spans a straight segment: wall to wall (planar), or from
+    /// the axis x = 0 to the wall at constant y = z (axisymmetric). Built-in shapes are made so.
+    void inflow_fits(const CaseFile &file, const std::string &key, const std::string &role,
+                     const meshes::GmshMesh &mesh, const FormulationKind formulation, const std::string &where)
+    {
+      const auto   box  = mesh.role_box(role);
+      const double size = std::max(box[1] - box[0], box[3] - box[2]);
+      const auto   text = [&](const int d) {
+        return rheology::format_short(box[2 * d]) + " to " + rheology::format_short(box[2 * d + 1]);
+      };
+      if (is_axisymmetric(formulation) && (box[3] - box[2] > 1e-10 * size || std::abs(box[0]) > 1e-10 * size))
+        file.fail(key, "role '" + role + "' of " + where + " spans x (r) from " + text(0) + " m and y (z) from " +
+                         text(1) + " m",
+                  "an axisymmetric inflow at one z, from the axis r = 0 to the wall");
+      if (box[1] - box[0] > 1e-10 * size && box[3] - box[2] > 1e-10 * size)
+        file.fail(key, "role '" + role + "' of " + where + " spans x from " + text(0) + " m and y from " + text(1) +
+                         " m: not one straight segment",
+                  "an inflow on one straight segment from wall to wall");
+    }
   } // namespace
 
   void declare_flow_case(CaseSchema &schema)
@@ -257,6 +290,8 @@ namespace lentus::input
                   if (!problem.empty())
                     file.fail(key, problem + " in " + shape_name,
                               "for Pressure, Symmetry and Inflow: roles whose sides all run along x or all along y");
+                  if (condition.type == BoundaryCondition::Type::inflow)
+                    inflow_fits(file, key, role, *imported, flow.formulation, shape_name);
                 }
             assigned[role] = condition.key;
             BoundaryCondition bc{role, condition.type, 0.};
@@ -308,6 +343,8 @@ namespace lentus::input
       flow.output_folder = (std::filesystem::path("out") / flow.case_name).string();
     flow.write_fields  = file.get("Output/Write fields") == "true";
     flow.complete_text = file.complete_text();
+    if (!flow.mesh_file.empty())
+      flow.complete_text = with_absolute_mesh_file(flow.complete_text, flow.mesh_file);
     return flow;
   }
 } // namespace lentus::input

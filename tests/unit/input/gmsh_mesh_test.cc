@@ -197,6 +197,32 @@ TEST(GmshMeshFile, RolesOfTheMeshInConditions)
                         "(0.025, 0.01) that is not parallel to a coordinate axis"));
 }
 
+TEST(GmshMeshFile, InflowOnOneSegment)
+{
+  // The developed inflow profile of an axisymmetric case reaches from the axis at one z.
+  EXPECT_THAT(message_of(case_with_mesh(two_squares, "axisymmetric",
+                                        "  set No-slip = wall, inlet\n  set Inflow = outlet\n"
+                                        "  set Inflow rates = 1e-6\n")),
+              HasSubstr("case.prm:21: Boundary conditions/Inflow = outlet: role 'outlet' of Gmsh mesh "
+                        "gmsh_unit_test.msh spans x (r) from 0.02 to 0.02 m and y (z) from 0 to 0.01 m; allowed: an "
+                        "axisymmetric inflow at one z, from the axis r = 0 to the wall"));
+  // Planar: the same role is one straight segment from wall to wall.
+  EXPECT_EQ(message_of(case_with_mesh(two_squares, "planar",
+                                      "  set No-slip = wall, inlet\n  set Inflow = outlet\n"
+                                      "  set Inflow rates = 1e-6\n")),
+            "(no error)");
+}
+
+TEST(GmshMeshFile, RecordedCaseNamesTheMeshByItsAbsolutePath)
+{
+  // case.prm in a results folder runs from anywhere.
+  const input::FlowCase flow =
+    input::read_flow_case(input::CaseFile::parse(case_with_mesh(two_squares), "case.prm", input::case_schema()));
+  EXPECT_THAT(flow.complete_text,
+              HasSubstr("set File  = " + std::filesystem::absolute("gmsh_unit_test.msh").lexically_normal().string() +
+                        " "));
+}
+
 TEST(GmshMeshFile, FileProblems)
 {
   const std::string missing = replaced(case_with_mesh(two_squares), "gmsh_unit_test.msh", "no_such.msh");
