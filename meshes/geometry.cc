@@ -3,6 +3,7 @@
 #include "meshes/shapes/basic_shapes.h"
 #include "meshes/shapes/obstacle_shapes.h"
 #include "meshes/shapes/round_die.h"
+#include "meshes/shapes/vessels.h"
 
 namespace lentus::meshes
 {
@@ -39,6 +40,8 @@ namespace lentus::meshes
       all.push_back(slit_die_shape());
       all.push_back(cylinder_in_channel_shape());
       all.push_back(sphere_in_tube_shape());
+      all.push_back(disk_impeller_vessel_shape());
+      all.push_back(bladed_impeller_vessel_shape());
       return all;
     }();
     return catalogue;

@@ -51,6 +51,9 @@ namespace lentus::meshes
 
     virtual Symmetry symmetry() const = 0;
 
+    /// Diameter D of the shape's impeller [m] (the one the vessel numbers refer to); 0 without one.
+    virtual double impeller_diameter() const { return 0.; }
+
     /// The id of `role`; throws rheology::InvalidParameter (key "boundary role") listing the roles.
     dealii::types::boundary_id id_of_role(const std::string &role) const;
 

@@ -6,6 +6,7 @@
 #include "solver/errors.h"
 #include "solver/report/atomic_file.h"
 
+#include <algorithm>
 #include <iomanip>
 #include <iostream>
 #include <sstream>
@@ -48,7 +49,8 @@ namespace lentus::cli
       const auto geometry = shape.create(shape.example);
       const auto roles    = geometry->role_names();
       // A first set of conditions from the role names; every role gets one.
-      std::vector<std::string> no_slip, moving, pressure, symmetry, axis;
+      std::vector<std::string> no_slip, moving, pressure, symmetry, axis, impeller;
+      const bool               vessel = std::count(roles.begin(), roles.end(), "impeller") > 0;
       std::vector<std::string> pressures;
       bool                     rotating = false;
       for (const std::string &role : roles)
@@ -64,7 +66,9 @@ namespace lentus::cli
           }
         else if (role == "axis")
           axis.push_back(role);
-        else if (role == "symmetry" || role == "top" || role == "bottom")
+        else if (role == "impeller" || role == "shaft")
+          impeller.push_back(role);
+        else if (role == "symmetry" || role == "top" || role == "free surface" || (role == "bottom" && !vessel))
           symmetry.push_back(role);
         else if (role == "lid")
           moving.push_back(role);
@@ -76,7 +80,9 @@ namespace lentus::cli
         else
           no_slip.push_back(role);
       const bool        axisymmetric = geometry->symmetry() == meshes::Symmetry::axisymmetric_only;
-      const std::string formulation  = !axisymmetric ? "planar" : rotating ? "axisymmetric with swirl" : "axisymmetric";
+      const std::string formulation  = !axisymmetric                      ? "planar" :
+                                       (rotating || !impeller.empty()) ? "axisymmetric with swirl" :
+                                                                         "axisymmetric";
 
       std::ostringstream text;
       text << "# Starter case for the shape \"" << shape.name << "\" (written by lentus starter).\n"
@@ -101,8 +107,19 @@ namespace lentus::cli
       text << "  end\nend\n\n"
            << "subsection Flow\n"
            << set_line("  ", "Formulation", formulation, "")
-           << set_line("  ", "Inertia", "false", "true needs Rheology/Density")
-           << "end\n\n"
+           << set_line("  ", "Inertia", "false", "true needs Rheology/Density");
+      if (!impeller.empty() && !axisymmetric)
+        text << set_line("  ", "Reference frame", "impeller", "steady in the frame turning with the impeller");
+      text << "end\n\n";
+      if (!impeller.empty())
+        text << "subsection Operating point\n"
+             << set_line("  ", "Rotation speed", "1", "N [rev/s] of the Impeller roles")
+             << "end\n\n"
+             << "subsection Vessel\n"
+             << set_line("  ", "Metzner-Otto constant", "11.5", "k_s [-]: effective shear rate k_s N")
+             << set_line("  ", "Dead-zone speed fraction", "0.01", "[-] of the tip speed pi N D")
+             << "end\n\n";
+      text
            << "subsection Boundary conditions       # every role gets exactly one condition\n";
       if (!no_slip.empty())
         text << set_line("  ", "No-slip", join(no_slip), "");
@@ -121,6 +138,8 @@ namespace lentus::cli
         text << set_line("  ", "Symmetry", join(symmetry), "");
       if (!axis.empty())
         text << set_line("  ", "Axis", join(axis), "");
+      if (!impeller.empty())
+        text << set_line("  ", "Impeller", join(impeller), "turn at Operating point/Rotation speed");
       text << "end\n";
       return text.str();
     }

@@ -6,12 +6,16 @@
 //   R_v = int [ 2 eta D:L_v                      (1) viscous stress
 //               + rho (L U) . U_v                (2) inertia (centrifugal, Coriolis included)
 //               - p tr L_v                       (3) pressure
-//               - rho g . U_v ] w dx             (4) gravity
+//               - rho g . U_v                    (4) gravity
+//               + rho [2 Omega e_z x u - Omega^2 r] . U_v   (4a) Coriolis and centrifugal force in
+//                                                           a frame turning at Omega (planar, inertia)
+//             ] w dx
 //         + int_{pressure roles} p_set (n . U_v) w ds   (5) set normal stress
 //   R_q = - int q tr L w dx                      (6) continuity
 // The Jacobian in direction (U_d, L_d, p_d):
 //   int [ 2 eta D_d:D_v + 4 eta'/gamma_dot (D:D_d)(D:D_v)   (1') Newton; Picard keeps the first part
 //         + rho (L_d U + L U_d) . U_v                         (2') Newton; Picard (Oseen) keeps L_d U
+//         + rho 2 Omega (e_z x U_d) . U_v                     (4a')
 //         - p_d tr L_v - q tr L_d ] w dx                      (3') (6')
 #include "solver/flow/flow_state.h"
 
@@ -80,7 +84,10 @@ namespace lentus::flow
       if (bc.type == input::BoundaryCondition::Type::pressure)
         set_pressure[state.flow.geometry->id_of_role(bc.role)] = bc.pressure;
 
-    const double rho     = state.density;
+    // Inertia only when switched on (a density may be present for gravity alone).
+    const double rho         = state.flow.inertia ? state.density : 0.;
+    const double rho_gravity = state.density;
+    const double frame_omega = (state.flow.impeller_frame && kind == FormulationKind::planar) ? state.flow.impeller_omega() : 0.;
     Tensor<1, 3> gravity;
     gravity[0] = state.flow.gravity[0];
     gravity[2] = state.flow.gravity[1];
@@ -116,6 +123,13 @@ namespace lentus::flow
             const auto         eta       = state.law->evaluate(gamma_dot);
             const double       p         = values[q][n_velocity];
             const Tensor<1, 3> convection = u.L * u.U;
+            // (4a): 2 Omega e_z x u - Omega^2 r, with e_z x u = (-u_y, u_x) (mesh components 0 and 2).
+            Tensor<1, 3> frame;
+            if (frame_omega != 0.)
+              {
+                frame[0] = -2. * frame_omega * u.U[2] - frame_omega * frame_omega * x[0];
+                frame[2] = 2. * frame_omega * u.U[0] - frame_omega * frame_omega * x[1];
+              }
             // d eta/d gamma_dot * d gamma_dot / dD: the Newton term needs 4 eta'/gamma_dot.
             const double newton_factor = (newton && gamma_dot > 1e-300) ? 4. * eta.derivative / gamma_dot : 0.;
 
@@ -143,7 +157,8 @@ namespace lentus::flow
                 // (1) + (2) + (3) + (4) for velocity tests, (6) for pressure tests
                 cell_residual(i) += (2. * eta.value * contract(D, shape_strain[i]) +
                                      rho * convection * shape[i].U - p * shape_divergence[i] -
-                                     rho * gravity * shape[i].U - shape_pressure[i] * trace(u.L)) *
+                                     rho_gravity * gravity * shape[i].U - shape_pressure[i] * trace(u.L) +
+                                     rho * frame * shape[i].U) *
                                     w;
                 if (!with_matrix)
                   continue;
@@ -159,6 +174,9 @@ namespace lentus::flow
                         Tensor<1, 3> linearized = shape[j].L * u.U; // (2') Oseen part
                         if (newton)
                           linearized += u.L * shape[j].U;
+                        // (4a') the Coriolis force is linear in u: kept by Picard and Newton alike
+                        linearized[0] -= 2. * frame_omega * shape[j].U[2];
+                        linearized[2] += 2. * frame_omega * shape[j].U[0];
                         entry += rho * linearized * shape[i].U;
                       }
                     cell_matrix(i, j) += entry * w;

@@ -2,6 +2,7 @@
 #include "solver/flow/flow_report.h"
 
 #include "solver/flow/developed_profile.h"
+#include "solver/flow/vessel_numbers.h"
 
 #include <deal.II/base/quadrature_lib.h>
 #include <deal.II/dofs/dof_tools.h>
@@ -52,7 +53,7 @@ namespace lentus::flow
             computed[q](1)               = eta;
             computed[q](2)               = eta * gamma_dot;
             computed[q](3)               = (tau_y > 0. && eta * gamma_dot < tau_y) ? 1. : 0.;
-            computed[q](4)               = u.U.norm();
+            computed[q](4)               = fixed_frame_velocity(state, at, u.U).norm();
           }
       }
 
@@ -145,7 +146,7 @@ namespace lentus::flow
                   sums[3] += fe_values.JxW(q);
                   sums[4] += w;
                 }
-              max_speed = std::max(max_speed, u.U.norm());
+              max_speed = std::max(max_speed, fixed_frame_velocity(state, x, u.U).norm());
             }
         }
     Utilities::MPI::sum(ArrayView<const double>(sums, 5), state.comm, ArrayView<double>(sums, 5));
@@ -195,7 +196,20 @@ namespace lentus::flow
     IndexSet                       claimed(state.dof_handler.n_dofs());
     std::map<std::string, double>  role_torque, role_power;
     std::map<std::string, std::array<double, 2>> role_force;
-    for (const input::BoundaryCondition &bc : state.flow.conditions)
+    // Walls first, so that a corner unknown shared with a symmetry, axis or pressure role (which
+    // leave some of its components free) counts for the wall.
+    std::vector<input::BoundaryCondition> walls_first;
+    for (const bool wall_pass : {true, false})
+      for (const input::BoundaryCondition &bc : state.flow.conditions)
+        {
+          const bool wall = bc.type == input::BoundaryCondition::Type::no_slip ||
+                            bc.type == input::BoundaryCondition::Type::moving_wall ||
+                            bc.type == input::BoundaryCondition::Type::impeller ||
+                            bc.type == input::BoundaryCondition::Type::inflow;
+          if (wall == wall_pass)
+            walls_first.push_back(bc);
+        }
+    for (const input::BoundaryCondition &bc : walls_first)
       {
         const IndexSet on_role =
           DoFTools::extract_boundary_dofs(state.dof_handler, velocity_mask, {roles.at(bc.role)}) & state.owned;
@@ -233,7 +247,8 @@ namespace lentus::flow
         numbers.push_back({"flow rate out through " + bc.role, flow_rate, flow_unit});
         numbers.push_back({"mean pressure on " + bc.role, sum[2] > 0. ? sum[1] / sum[2] : 0., "Pa"});
         const bool wall = bc.type == input::BoundaryCondition::Type::no_slip ||
-                          bc.type == input::BoundaryCondition::Type::moving_wall;
+                          bc.type == input::BoundaryCondition::Type::moving_wall ||
+                          bc.type == input::BoundaryCondition::Type::impeller;
         if (wall && state.kind != FormulationKind::axisymmetric)
           numbers.push_back({"torque on the fluid from " + bc.role, role_torque[bc.role], "N m" + per});
         // Force the wall exerts on the fluid (the fluid's drag on the wall is its negative). Axisymmetric:
@@ -292,6 +307,7 @@ namespace lentus::flow
                            (total_drop - developed) / (2. * last_wall_stress), "-"});
       }
 
+    append_vessel_numbers(state, role_torque, numbers);
     numbers.push_back({"power input through boundaries", power_in, "W" + per});
     numbers.push_back({"viscous dissipation", factor * sums[2], "W" + per});
     numbers.push_back({"maximum speed", max_speed, "m/s"});

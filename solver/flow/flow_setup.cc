@@ -45,26 +45,30 @@ namespace lentus::flow
 
   namespace
   {
-    /// Velocity of the moving walls at a point, in mesh components (+ u_theta with swirl).
+    /// Velocity of a wall that translates at `velocity` and turns at `omega` about the axis (swirl)
+    /// or the origin (planar), seen from a frame turning at `frame_omega` (planar only), in mesh
+    /// components (+ u_theta with swirl).
     class WallVelocity : public Function<2>
     {
     public:
-      WallVelocity(const input::FlowCase &flow, const unsigned int n_components)
+      WallVelocity(const FormulationKind kind_, const unsigned int n_components, const double velocity_x,
+                   const double velocity_y, const double omega_, const double frame_omega)
         : Function<2>(n_components)
-        , velocity{flow.wall_velocity[0], flow.wall_velocity[1]}
-        , omega(flow.rotation_rate)
-        , kind(flow.formulation)
+        , velocity{velocity_x, velocity_y}
+        , omega(omega_)
+        , relative_omega(omega_ - frame_omega)
+        , kind(kind_)
       {}
 
       double value(const Point<2> &x, const unsigned int component) const override
       {
         if (kind == FormulationKind::planar)
           {
-            // u = U_wall + Omega e_z x r = U_wall + Omega (-y, x)
+            // u = U_wall + (Omega - Omega_frame) e_z x r = U_wall + (Omega - Omega_frame) (-y, x)
             if (component == 0)
-              return velocity[0] - omega * x[1];
+              return velocity[0] - relative_omega * x[1];
             if (component == 1)
-              return velocity[1] + omega * x[0];
+              return velocity[1] + relative_omega * x[0];
             return 0.;
           }
         if (component < 2)
@@ -76,7 +80,7 @@ namespace lentus::flow
 
     private:
       double          velocity[2];
-      double          omega;
+      double          omega, relative_omega;
       FormulationKind kind;
     };
 
@@ -210,7 +214,12 @@ namespace lentus::flow
         DoFTools::make_hanging_node_constraints(state.dof_handler, *constraints);
         const unsigned int              n_components = state.n_velocity + 1;
         const Functions::ZeroFunction<2> zero(n_components);
-        const WallVelocity              wall(flow, n_components);
+        // Walls as seen from the frame of reference (the impeller's frame turns at 2 pi N).
+        const double       frame_omega = flow.impeller_frame ? flow.impeller_omega() : 0.;
+        const WallVelocity fixed_wall(state.kind, n_components, 0., 0., 0., frame_omega);
+        const WallVelocity wall(state.kind, n_components, flow.wall_velocity[0], flow.wall_velocity[1],
+                                flow.rotation_rate, frame_omega);
+        const WallVelocity impeller(state.kind, n_components, 0., 0., flow.impeller_omega(), frame_omega);
         for (const input::BoundaryCondition &bc : flow.conditions)
           {
             const types::boundary_id id = roles.at(bc.role);
@@ -221,6 +230,12 @@ namespace lentus::flow
               {
                 case input::BoundaryCondition::Type::no_slip:
                   std::fill(mask.begin(), mask.begin() + state.n_velocity, true);
+                  if (!homogeneous && flow.impeller_frame)
+                    values = &fixed_wall;
+                  break;
+                case input::BoundaryCondition::Type::impeller:
+                  std::fill(mask.begin(), mask.begin() + state.n_velocity, true);
+                  values = homogeneous ? static_cast<const Function<2> *>(&zero) : &impeller;
                   break;
                 case input::BoundaryCondition::Type::moving_wall:
                   std::fill(mask.begin(), mask.begin() + state.n_velocity, true);

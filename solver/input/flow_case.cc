@@ -36,6 +36,9 @@ namespace lentus::input
       {"Inflow", BoundaryCondition::Type::inflow,
        "Roles where the fluid enters fully developed, with the profile of its own viscosity law carrying the "
        "flow rate of Inflow rates (a slit from wall to wall, or a pipe from the axis to the wall)."},
+      {"Impeller", BoundaryCondition::Type::impeller,
+       "Roles that turn with the impeller at Operating point/Rotation speed N: u_theta = 2 pi N r (swirl), "
+       "u = 2 pi N e_z x r (planar, fixed frame); at rest when solved in the impeller's frame."},
     };
 
     const std::string conditions = "Boundary conditions/";
@@ -105,6 +108,19 @@ namespace lentus::input
                    "Include the inertia term rho (u . grad) u (needs Rheology/Density).");
     schema.declare("Flow/Gravity", "0, 0", ValueKind::real_list(Range::any()),
                    "Body force per unit mass g [m/s^2], two mesh components (x, y) or (r, z); needs Density if not 0.");
+    schema.declare("Flow/Reference frame", "fixed", ValueKind::selection({"fixed", "impeller"}),
+                   "fixed: the laboratory frame; impeller (planar only): the frame turning with the impeller "
+                   "at the rotation speed, where a bladed impeller's flow is steady; fixed walls then move at "
+                   "-2 pi N e_z x r, and with inertia the Coriolis and centrifugal forces act.");
+    schema.declare("Operating point/Rotation speed", "0", ValueKind::real(Range::at_least(0.)),
+                   "N [rev/s]: rotation speed of the roles listed under Boundary conditions/Impeller "
+                   "(counter-clockwise about the axis or the origin).");
+    schema.declare("Vessel/Metzner-Otto constant", "11.5", ValueKind::real(Range::above(0.)),
+                   "k_s [-]: effective shear rate k_s N for the apparent viscosity of the Metzner-Otto Reynolds "
+                   "number (Metzner & Otto 1957; about 10-13 for turbines).");
+    schema.declare("Vessel/Dead-zone speed fraction", "0.01", ValueKind::real(Range::at_least(0.)),
+                   "[-]: fluid slower than this fraction of the impeller tip speed pi N D counts as dead, as "
+                   "does unyielded fluid.");
     schema.declare("Flow/Velocity degree", "2", ValueKind::integer(2, 4),
                    "Polynomial degree of the velocity (Taylor-Hood: pressure one lower).");
 
@@ -321,13 +337,36 @@ namespace lentus::input
       if (!assigned.count(role))
         file.fail(conditions + "No-slip", "boundary role '" + role + "' of " + shape_name + " has no condition",
                   "every role (" + role_list + ") listed under exactly one of No-slip, Moving wall, Pressure, "
-                  "Traction-free, Symmetry, Axis, Inflow");
+                  "Traction-free, Symmetry, Axis, Inflow, Impeller");
     const auto wall_velocity = split_list(file.get(conditions + "Wall velocity"));
     if (wall_velocity.size() != 2)
       file.fail(conditions + "Wall velocity", "needs two components", "two real numbers [m/s]");
     flow.wall_velocity[0] = *parse_real(wall_velocity[0]);
     flow.wall_velocity[1] = *parse_real(wall_velocity[1]);
     flow.rotation_rate    = file.get_real(conditions + "Rotation rate");
+
+    // Impellers: a speed when there are impeller roles, and the rotating frame only for planar flow.
+    flow.rotation_speed        = file.get_real("Operating point/Rotation speed");
+    flow.impeller_frame        = file.get("Flow/Reference frame") == "impeller";
+    flow.metzner_otto_constant = file.get_real("Vessel/Metzner-Otto constant");
+    flow.dead_zone_fraction    = file.get_real("Vessel/Dead-zone speed fraction");
+    const bool has_impeller = std::any_of(flow.conditions.begin(), flow.conditions.end(), [](const auto &bc) {
+      return bc.type == BoundaryCondition::Type::impeller;
+    });
+    if (has_impeller && !(flow.rotation_speed > 0.))
+      file.fail("Operating point/Rotation speed", "missing or zero; the Impeller roles turn at it",
+                "N > 0 [rev/s]");
+    if (!has_impeller && flow.rotation_speed > 0.)
+      file.fail("Operating point/Rotation speed", "set, but no role is listed under Boundary conditions/Impeller",
+                "0, or list the turning roles under Impeller");
+    if (flow.impeller_frame && flow.formulation != FormulationKind::planar)
+      file.fail("Flow/Reference frame", "the impeller's frame is for planar flow; axisymmetric flow is steady in "
+                "the fixed frame", "fixed");
+    if (has_impeller && flow.formulation == FormulationKind::axisymmetric)
+      file.fail(conditions + "Impeller", "a turning impeller needs the swirl velocity",
+                "Flow/Formulation = axisymmetric with swirl, or planar");
+    if (flow.impeller_frame && !has_impeller)
+      file.fail("Flow/Reference frame", "no role is listed under Boundary conditions/Impeller", "fixed");
 
     flow.relative_tolerance = file.get_real("Nonlinear solver/Relative tolerance");
     flow.absolute_tolerance = file.get_real("Nonlinear solver/Absolute tolerance");

@@ -7,6 +7,7 @@
 #include "solver/input/case_file.h"
 #include "solver/input/fluid_section.h"
 
+#include <cmath>
 #include <memory>
 #include <string>
 #include <vector>
@@ -27,7 +28,8 @@ namespace lentus::input
       traction_free, ///< sigma n = 0 ("do-nothing")
       symmetry,      ///< u . n = 0, zero tangential traction
       axis,          ///< r = 0: u_r = 0, u_theta = 0
-      inflow         ///< fully developed profile of the fluid's own law carrying a set flow rate
+      inflow,        ///< fully developed profile of the fluid's own law carrying a set flow rate
+      impeller       ///< turns with the impeller at the rotation speed (at rest in the impeller's frame)
     };
     std::string role;
     Type        type;
@@ -37,6 +39,9 @@ namespace lentus::input
 
   struct FlowCase
   {
+    /// Angular velocity of the impeller, 2 pi N [rad/s].
+    double impeller_omega() const { return 2. * M_PI * rotation_speed; }
+
     std::string                        case_file;
     std::string                        case_name;   ///< file name without folder and extension
     Fluid                              fluid;
@@ -51,6 +56,10 @@ namespace lentus::input
     std::vector<BoundaryCondition>     conditions;
     double                             wall_velocity[2] = {0., 0.}; ///< [m/s] for moving walls
     double                             rotation_rate = 0.;          ///< [rad/s] for moving walls
+    double                             rotation_speed = 0.;         ///< N [rev/s] of the Impeller roles
+    bool                               impeller_frame = false;      ///< solve in the impeller's rotating frame
+    double                             metzner_otto_constant = 11.5; ///< k_s [-]: effective shear rate k_s N
+    double                             dead_zone_fraction = 0.01;   ///< dead: slower than this x tip speed [-]
     unsigned int                       velocity_degree = 2;
     // Nonlinear solver
     double       relative_tolerance = 1e-8;

@@ -6,6 +6,7 @@
 #include "solver/input/case_schema.h"
 #include "solver/input/flow_case.h"
 
+#include <cmath>
 #include <string>
 #include <vector>
 
@@ -19,6 +20,12 @@ namespace lentus::testing
     overrides.push_back("Output/Folder=verification_out/" + name);
     const input::CaseFile file = input::CaseFile::parse(text, name + ".prm", input::case_schema(), overrides);
     return input::read_flow_case(file);
+  }
+
+  /// |a - b| / |b|.
+  inline double relative_difference(const double a, const double b)
+  {
+    return std::abs(a - b) / std::abs(b);
   }
 
   inline flow::RunResult run_case(const std::string &name,

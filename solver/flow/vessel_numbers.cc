@@ -1,0 +1,224 @@
+// Vessel numbers. The cavern is the set of yielded cells connected through faces to the
+// impeller; it is found on rank 0 from every rank's cells (a 2D mesh's cell list is small).
+#include "solver/flow/vessel_numbers.h"
+
+#include <deal.II/base/mpi.h>
+#include <deal.II/base/quadrature_lib.h>
+#include <deal.II/fe/fe_values.h>
+
+#include <algorithm>
+#include <array>
+#include <cmath>
+#include <map>
+#include <set>
+
+namespace lentus::flow
+{
+  using namespace dealii;
+
+  bool has_impeller(const FlowState &state)
+  {
+    return std::any_of(state.flow.conditions.begin(), state.flow.conditions.end(), [](const auto &bc) {
+      return bc.type == input::BoundaryCondition::Type::impeller;
+    });
+  }
+
+  Tensor<1, 3> fixed_frame_velocity(const FlowState &state, const Point<2> &x, const Tensor<1, 3> &U)
+  {
+    Tensor<1, 3> lab = U;
+    if (state.flow.impeller_frame && state.kind == FormulationKind::planar)
+      {
+        const double omega = state.flow.impeller_omega();
+        lab[0] -= omega * x[1];
+        lab[2] += omega * x[0];
+      }
+    return lab;
+  }
+
+  namespace
+  {
+    /// One cell as rank 0 needs it for the cavern: its four face centres, whether some of it is
+    /// yielded, whether it touches the impeller, and the extent and size of its yielded part.
+    using CellRecord = std::array<double, 14>;
+    enum Slot
+    {
+      faces = 0, // 8 coordinates
+      yielded = 8,
+      touches_impeller,
+      radius, // largest distance of a yielded point from the axis (planar: from the origin)
+      low,    // lowest and highest yielded z (axisymmetric)
+      high,
+      yielded_measure // yielded volume (axisymmetric, per radian) or area (planar)
+    };
+
+    /// Face centres rounded to a grid much finer than any cell, as keys shared by neighbours.
+    std::array<long long, 2> face_key(const double x, const double y, const double scale)
+    {
+      return {{std::llround(x / scale * 1e9), std::llround(y / scale * 1e9)}};
+    }
+  } // namespace
+
+  void append_vessel_numbers(const FlowState &state, const std::map<std::string, double> &torque_on_fluid,
+                             std::vector<DesignNumber> &numbers)
+  {
+    if (!has_impeller(state))
+      return;
+    const input::FlowCase &flow         = state.flow;
+    const bool             axisymmetric = is_axisymmetric(state.kind);
+    const std::string      per          = axisymmetric ? "" : "/m";
+    const double           N            = flow.rotation_speed;
+    const double           omega        = flow.impeller_omega();
+    const double           D            = flow.geometry->impeller_diameter();
+    const double           rho          = flow.fluid.density; // NaN when not given
+    const double           tau_y        = state.law->yield_stress();
+    const double           tip_speed    = M_PI * N * D;
+
+    // Torque and power the impeller roles put into the fluid.
+    std::set<types::boundary_id> impeller_ids;
+    double                       torque = 0.;
+    const auto                   roles  = flow.geometry->boundary_roles();
+    for (const input::BoundaryCondition &bc : flow.conditions)
+      if (bc.type == input::BoundaryCondition::Type::impeller)
+        {
+          impeller_ids.insert(roles.at(bc.role));
+          torque += torque_on_fluid.at(bc.role);
+        }
+    const double power = omega * torque;
+    numbers.push_back({"impeller torque", torque, "N m" + per});
+    numbers.push_back({"impeller power", power, "W" + per});
+    if (D > 0.)
+      {
+        numbers.push_back({"impeller tip speed", tip_speed, "m/s"});
+        // Metzner & Otto (1957): effective shear rate k_s N and the apparent viscosity there.
+        const double rate     = flow.metzner_otto_constant * N;
+        const double apparent = state.law->evaluate(rate).value;
+        numbers.push_back({"Metzner-Otto shear rate", rate, "1/s"});
+        numbers.push_back({"apparent viscosity at the Metzner-Otto shear rate", apparent, "Pa s"});
+        if (!std::isnan(rho))
+          {
+            // Po = P / (rho N^3 D^5); per metre of depth when planar: P' / (rho N^3 D^4).
+            numbers.push_back({"power number", power / (rho * N * N * N * std::pow(D, axisymmetric ? 5 : 4)), "-"});
+            numbers.push_back({"Metzner-Otto Reynolds number", rho * N * D * D / apparent, "-"});
+            if (tau_y > 0.)
+              numbers.push_back({"yield Reynolds number", rho * N * N * D * D / tau_y, "-"});
+          }
+      }
+
+    // Dead zones and the cells of the cavern.
+    const QGauss<2>                        quadrature(state.fe.degree + 1);
+    FEValues<2>                            fe_values(state.fe, quadrature,
+                                                     update_values | update_gradients | update_quadrature_points |
+                                                       update_JxW_values);
+    std::vector<dealii::Vector<double>>    values(quadrature.size(), dealii::Vector<double>(state.n_velocity + 1));
+    std::vector<std::vector<Tensor<1, 2>>> gradients(quadrature.size(), std::vector<Tensor<1, 2>>(state.n_velocity + 1));
+    double                                 sums[4] = {0., 0., 0., 0.}; // area, volume, dead area, dead volume
+    std::vector<CellRecord>                records;
+    double                                 scale = 0.;
+    for (const auto &cell : state.dof_handler.active_cell_iterators())
+      if (cell->is_locally_owned())
+        {
+          fe_values.reinit(cell);
+          fe_values.get_function_values(state.solution, values);
+          fe_values.get_function_gradients(state.solution, gradients);
+          CellRecord record{};
+          record[radius] = -HUGE_VAL;
+          record[low]    = HUGE_VAL;
+          record[high]   = -HUGE_VAL;
+          for (unsigned int q = 0; q < quadrature.size(); ++q)
+            {
+              const Point<2>    &x = fe_values.quadrature_point(q);
+              const double       w = volume_weight(state.kind, x) * fe_values.JxW(q);
+              const Kinematics   u = kinematics(state.kind, x, &values[q][0], gradients[q].data());
+              const Tensor<2, 3> D_ = strain_rate(u.L);
+              const double       gamma_dot  = std::sqrt(2. * contract(D_, D_));
+              const bool         unyielded  = tau_y > 0. && state.law->evaluate(gamma_dot).value * gamma_dot < tau_y;
+              const double       speed      = fixed_frame_velocity(state, x, u.U).norm();
+              const bool         dead       = unyielded || speed < flow.dead_zone_fraction * tip_speed;
+              sums[0] += fe_values.JxW(q);
+              sums[1] += w;
+              if (dead)
+                {
+                  sums[2] += fe_values.JxW(q);
+                  sums[3] += w;
+                }
+              if (tau_y > 0. && !unyielded)
+                {
+                  record[yielded] = 1.;
+                  record[radius]  = std::max(record[radius], axisymmetric ? x[0] : x.norm());
+                  record[low]     = std::min(record[low], x[1]);
+                  record[high]    = std::max(record[high], x[1]);
+                  record[yielded_measure] += w;
+                }
+            }
+          for (const auto face_no : cell->face_indices())
+            {
+              const Point<2> c                 = cell->face(face_no)->center();
+              record[faces + 2 * face_no]     = c[0];
+              record[faces + 2 * face_no + 1] = c[1];
+              if (cell->face(face_no)->at_boundary() && impeller_ids.count(cell->face(face_no)->boundary_id()))
+                record[touches_impeller] = 1.;
+            }
+          scale = std::max(scale, cell->center().norm() + cell->diameter());
+          records.push_back(record);
+        }
+    Utilities::MPI::sum(ArrayView<const double>(sums, 4), state.comm, ArrayView<double>(sums, 4));
+    numbers.push_back({"dead-zone area fraction", sums[2] / sums[0], "-"});
+    if (axisymmetric)
+      numbers.push_back({"dead-zone volume fraction", sums[3] / sums[1], "-"});
+    if (!(tau_y > 0.))
+      return;
+
+    // Cavern: flood fill on rank 0 from the yielded cells at the impeller through yielded neighbours.
+    scale                 = Utilities::MPI::max(scale, state.comm);
+    const auto all        = Utilities::MPI::gather(state.comm, records, 0);
+    double     cavern[4]  = {0., 0., 0., 0.}; // radius, height, measure, found
+    if (state.rank == 0)
+      {
+        std::vector<CellRecord> cells;
+        for (const auto &part : all)
+          cells.insert(cells.end(), part.begin(), part.end());
+        std::map<std::array<long long, 2>, std::vector<std::size_t>> by_face;
+        for (std::size_t i = 0; i < cells.size(); ++i)
+          for (unsigned int f = 0; f < 4; ++f)
+            by_face[face_key(cells[i][faces + 2 * f], cells[i][faces + 2 * f + 1], scale)].push_back(i);
+        std::vector<bool>        reached(cells.size(), false);
+        std::vector<std::size_t> front;
+        for (std::size_t i = 0; i < cells.size(); ++i)
+          if (cells[i][yielded] > 0. && cells[i][touches_impeller] > 0.)
+            {
+              reached[i] = true;
+              front.push_back(i);
+            }
+        double top = -HUGE_VAL, bottom = HUGE_VAL;
+        while (!front.empty())
+          {
+            const std::size_t i = front.back();
+            front.pop_back();
+            cavern[0] = std::max(cavern[0], cells[i][radius]);
+            cavern[2] += cells[i][yielded_measure];
+            cavern[3] = 1.;
+            top       = std::max(top, cells[i][high]);
+            bottom    = std::min(bottom, cells[i][low]);
+            for (unsigned int f = 0; f < 4; ++f)
+              for (const std::size_t j :
+                   by_face[face_key(cells[i][faces + 2 * f], cells[i][faces + 2 * f + 1], scale)])
+                if (!reached[j] && cells[j][yielded] > 0.)
+                  {
+                    reached[j] = true;
+                    front.push_back(j);
+                  }
+          }
+        cavern[1] = cavern[3] > 0. ? top - bottom : 0.;
+      }
+    MPI_Bcast(cavern, 4, MPI_DOUBLE, 0, state.comm);
+    // The cavern's extent is measured at quadrature points: it is exact to about a cell's size.
+    numbers.push_back({"cavern radius", cavern[0], "m"});
+    if (axisymmetric)
+      {
+        numbers.push_back({"cavern height", cavern[1], "m"});
+        numbers.push_back({"cavern volume fraction", cavern[2] / sums[1], "-"});
+      }
+    else
+      numbers.push_back({"cavern area fraction", cavern[2] / sums[0], "-"});
+  }
+} // namespace lentus::flow
