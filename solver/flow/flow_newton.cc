@@ -9,6 +9,7 @@
 
 #include <deal.II/base/timer.h>
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 
@@ -38,9 +39,14 @@ namespace lentus::flow
       return law;
     }
 
-    /// One Newton/Picard solve from state.solution; true if converged.
-    bool iterate(FlowState &state, const bool direct, SolveReport &report, std::string &why)
+    /// One Newton/Picard solve from state.solution; true if converged. With `give_up_when_stalled`,
+    /// it stops once Newton has crawled (line-search steps of 1/16 or less) for `stall_limit`
+    /// iterations in a row, so that continuation can take over early.
+    bool iterate(FlowState &state, const bool direct, SolveReport &report, std::string &why,
+                 const bool give_up_when_stalled = false, const unsigned int max_picard_steps = ~0u)
     {
+      const unsigned int stall_limit = 4;
+      unsigned int       stalled     = 0;
       const input::FlowCase &flow = state.flow;
       Vector                 current(state.owned, state.comm), update(state.owned, state.comm),
         trial(state.owned, state.comm);
@@ -63,7 +69,8 @@ namespace lentus::flow
         {
           Timer              timer;
           const Linearization linearization =
-            (residual / first > flow.picard_until && picard < flow.max_picard_steps) ? Linearization::picard :
+            (residual / first > flow.picard_until && picard < std::min(flow.max_picard_steps, max_picard_steps)) ?
+              Linearization::picard :
                                                                                       Linearization::newton;
           if (linearization == Linearization::picard)
             ++picard;
@@ -130,6 +137,13 @@ namespace lentus::flow
                          format("  linear iterations %.0f  %.2f s", linear_iterations, timer.wall_time()));
           if (residual <= target)
             return true;
+          stalled = (linearization == Linearization::newton && step <= 1. / 16.) ? stalled + 1 : 0;
+          if (give_up_when_stalled && stalled >= stall_limit)
+            {
+              why = "Newton stalled: " + std::to_string(stall_limit) + " line-search steps of 1/16 or less in a row "
+                    "(residual " + format("%.3e", residual) + ")";
+              return false;
+            }
         }
       why = "no convergence in " + std::to_string(flow.max_iterations) + " iterations (residual " +
             format("%.3e", residual) + ", target " + format("%.3e", target) + ")";
@@ -149,7 +163,7 @@ namespace lentus::flow
 
     initial_solution(state);
     std::string why;
-    if (iterate(state, direct, report, why))
+    if (iterate(state, direct, report, why, flow.continuation))
       {
         report.converged = true;
         return report;
@@ -198,7 +212,16 @@ namespace lentus::flow
           state.law = law_with(fluid, key, value);
         report.continuation_steps.push_back(key + " = " + rheology::format_short(value));
         state.log.line(" " + key + " = " + rheology::format_short(value));
-        if (!iterate(state, direct, report, why))
+        // Each step starts next to the previous solution: Newton at once (two Picard steps at most
+        // for the first, which starts from rest); a stalled Newton gets a second try with Picard.
+        const unsigned int picard_steps = value == path.front() ? 2u : 0u;
+        bool               done         = iterate(state, direct, report, why, true, picard_steps);
+        if (!done)
+          {
+            state.log.line("  Newton from the previous step failed (" + why + "); again with Picard steps first");
+            done = iterate(state, direct, report, why);
+          }
+        if (!done)
           {
             state.law     = fluid.law;
             state.density = full_density;
