@@ -10,6 +10,7 @@
 #include <cmath>
 #include <fstream>
 #include <iostream>
+#include <memory>
 #include <sstream>
 
 namespace lentus::cli
@@ -67,6 +68,10 @@ namespace lentus::cli
 
     const input::CaseFile file  = input::CaseFile::read(arguments.positional[0], input::case_schema(), arguments.sets);
     const input::Fluid    fluid = input::read_fluid(file);
+    // Read everything before saying "valid": a flow case's geometry and conditions too.
+    std::unique_ptr<input::FlowCase> flow;
+    if (file.is_set("Geometry/Shape"))
+      flow = std::make_unique<input::FlowCase>(input::read_flow_case(file));
     std::cout << file.file_name() << ": valid\n  fluid: " << fluid.law_name;
     for (const auto &[key, value] : fluid.parameters)
       std::cout << "; " << key << " = " << rheology::format_value(value);
@@ -75,14 +80,13 @@ namespace lentus::cli
       std::cout << " at T = " << rheology::format_value(fluid.temperature)
                 << " K (a_T = " << rheology::format_value(fluid.shift_factor) << ")";
     std::cout << '\n';
-    if (file.is_set("Geometry/Shape"))
+    if (flow)
       {
-        const input::FlowCase flow = input::read_flow_case(file);
-        std::cout << "  geometry: " << flow.shape_name << ", refinement " << flow.refinement << "; formulation "
-                  << to_string(flow.formulation) << "; boundary roles:";
-        for (const input::BoundaryCondition &bc : flow.conditions)
+        std::cout << "  geometry: " << flow->shape_name << ", refinement " << flow->refinement << "; formulation "
+                  << to_string(flow->formulation) << "; boundary roles:";
+        for (const input::BoundaryCondition &bc : flow->conditions)
           std::cout << ' ' << bc.role << ';';
-        std::cout << "\n  results would go to " << flow.output_folder << '\n';
+        std::cout << "\n  results would go to " << flow->output_folder << '\n';
       }
     return 0;
   }
