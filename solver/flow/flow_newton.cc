@@ -214,12 +214,15 @@ namespace lentus::flow
         state.log.line(" " + key + " = " + rheology::format_short(value));
         // Each step starts next to the previous solution: Newton at once (two Picard steps at most
         // for the first, which starts from rest); a stalled Newton gets a second try with Picard.
+        // The retry starts again from the previous step's solution, with the usual Picard start.
         const unsigned int picard_steps = value == path.front() ? 2u : 0u;
+        const Vector       start        = state.solution;
         bool               done         = iterate(state, direct, report, why, true, picard_steps);
         if (!done)
           {
             state.log.line("  Newton from the previous step failed (" + why + "); again with Picard steps first");
-            done = iterate(state, direct, report, why);
+            state.solution = start;
+            done           = iterate(state, direct, report, why);
           }
         if (!done)
           {
