@@ -12,6 +12,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <vector>
 
 namespace lentus::flow
 {
@@ -40,13 +41,13 @@ namespace lentus::flow
     }
 
     /// One Newton/Picard solve from state.solution; true if converged. With `give_up_when_stalled`,
-    /// it stops once Newton has crawled (line-search steps of 1/16 or less) for `stall_limit`
-    /// iterations in a row, so that continuation can take over early.
+    /// it stops once Newton crawls (the residual fell by less than 10% over the last `stall_limit`
+    /// Newton steps), so that continuation can take over early.
     bool iterate(FlowState &state, const bool direct, SolveReport &report, std::string &why,
                  const bool give_up_when_stalled = false, const unsigned int max_picard_steps = ~0u)
     {
-      const unsigned int stall_limit = 4;
-      unsigned int       stalled     = 0;
+      const unsigned int  stall_limit = 4;
+      std::vector<double> newton_residuals; // of the current run of Newton steps, the one before them first
       const input::FlowCase &flow = state.flow;
       Vector                 current(state.owned, state.comm), update(state.owned, state.comm),
         trial(state.owned, state.comm);
@@ -137,11 +138,19 @@ namespace lentus::flow
                          format("  linear iterations %.0f  %.2f s", linear_iterations, timer.wall_time()));
           if (residual <= target)
             return true;
-          stalled = (linearization == Linearization::newton && step <= 1. / 16.) ? stalled + 1 : 0;
-          if (give_up_when_stalled && stalled >= stall_limit)
+          if (linearization == Linearization::newton)
             {
-              why = "Newton stalled: " + std::to_string(stall_limit) + " line-search steps of 1/16 or less in a row "
-                    "(residual " + format("%.3e", residual) + ")";
+              if (newton_residuals.empty())
+                newton_residuals.push_back(previous);
+              newton_residuals.push_back(residual);
+            }
+          else
+            newton_residuals.clear();
+          const std::size_t n = newton_residuals.size();
+          if (give_up_when_stalled && n > stall_limit && residual > 0.9 * newton_residuals[n - 1 - stall_limit])
+            {
+              why = "Newton stalled: the residual fell by less than 10% in " + std::to_string(stall_limit) +
+                    " steps (residual " + format("%.3e", residual) + ")";
               return false;
             }
         }
@@ -163,7 +172,10 @@ namespace lentus::flow
 
     initial_solution(state);
     std::string why;
-    if (iterate(state, direct, report, why, flow.continuation))
+    // The direct attempt may crawl for a while and still converge sooner than continuation would
+    // (Bingham cavity, Bn = 20, level 5: 34 Newton steps, against 46 when it gives up early), so it
+    // is not cut short.
+    if (iterate(state, direct, report, why))
       {
         report.converged = true;
         return report;
