@@ -70,6 +70,14 @@ namespace lentus::flow
     private:
       const FlowState &state;
     };
+
+    /// A wall: the fluid sticks to it (at rest, moving or turning with the impeller).
+    bool is_wall(const input::BoundaryCondition &bc)
+    {
+      return bc.type == input::BoundaryCondition::Type::no_slip ||
+             bc.type == input::BoundaryCondition::Type::moving_wall ||
+             bc.type == input::BoundaryCondition::Type::impeller;
+    }
   } // namespace
 
   std::vector<DesignNumber> design_numbers(FlowState &state)
@@ -202,11 +210,9 @@ namespace lentus::flow
     for (const bool wall_pass : {true, false})
       for (const input::BoundaryCondition &bc : state.flow.conditions)
         {
-          const bool wall = bc.type == input::BoundaryCondition::Type::no_slip ||
-                            bc.type == input::BoundaryCondition::Type::moving_wall ||
-                            bc.type == input::BoundaryCondition::Type::impeller ||
-                            bc.type == input::BoundaryCondition::Type::inflow;
-          if (wall == wall_pass)
+          // Roles that fix every velocity component come first.
+          const bool fixed = is_wall(bc) || bc.type == input::BoundaryCondition::Type::inflow;
+          if (fixed == wall_pass)
             walls_first.push_back(bc);
         }
     for (const input::BoundaryCondition &bc : walls_first)
@@ -246,9 +252,7 @@ namespace lentus::flow
         const double flow_rate = factor * sum[0];
         numbers.push_back({"flow rate out through " + bc.role, flow_rate, flow_unit});
         numbers.push_back({"mean pressure on " + bc.role, sum[2] > 0. ? sum[1] / sum[2] : 0., "Pa"});
-        const bool wall = bc.type == input::BoundaryCondition::Type::no_slip ||
-                          bc.type == input::BoundaryCondition::Type::moving_wall ||
-                          bc.type == input::BoundaryCondition::Type::impeller;
+        const bool wall = is_wall(bc);
         if (wall && state.kind != FormulationKind::axisymmetric)
           numbers.push_back({"torque on the fluid from " + bc.role, role_torque[bc.role], "N m" + per});
         // Force the wall exerts on the fluid (the fluid's drag on the wall is its negative). Axisymmetric:

@@ -8,6 +8,7 @@
 #include <cmath>
 #include <functional>
 
+using lentus::testing::power_law;
 using lentus::testing::run_case;
 
 namespace
@@ -52,20 +53,6 @@ subsection Boundary conditions
   set Axis = axis
   set Pressure = inlet, outlet
   set Pressure values = )" + std::to_string(pressure_drop) + R"(, 0
-end
-)";
-  }
-
-  std::string power_law(const double n)
-  {
-    return R"(subsection Rheology
-  set Viscosity law = Power law
-  subsection Power law
-    set Consistency = 1
-    set Flow index = )" + std::to_string(n) + R"(
-    set Minimum viscosity = 1e-8
-    set Maximum viscosity = 1e8
-  end
 end
 )";
   }

@@ -7,25 +7,12 @@
 
 #include <cmath>
 
+using lentus::testing::power_law;
 using lentus::testing::run_case;
 
 namespace
 {
   const std::string meshes = std::string(LENTUS_SOURCE_DIR) + "/tests/verification/meshes/";
-
-  std::string power_law(const double n)
-  {
-    return R"(subsection Rheology
-  set Viscosity law = Power law
-  subsection Power law
-    set Consistency = 1
-    set Flow index = )" + std::to_string(n) + R"(
-    set Minimum viscosity = 1e-8
-    set Maximum viscosity = 1e8
-  end
-end
-)";
-  }
 
   std::string gmsh_geometry(const std::string &file, const double scale, const int refinement)
   {

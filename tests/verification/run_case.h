@@ -22,6 +22,21 @@ namespace lentus::testing
     return input::read_flow_case(file);
   }
 
+  /// Rheology section of a power-law fluid, K = 1 Pa s^n, flow index n, viscosity bounds far away.
+  inline std::string power_law(const double n)
+  {
+    return R"(subsection Rheology
+  set Viscosity law = Power law
+  subsection Power law
+    set Consistency = 1
+    set Flow index = )" + std::to_string(n) + R"(
+    set Minimum viscosity = 1e-8
+    set Maximum viscosity = 1e8
+  end
+end
+)";
+  }
+
   /// |a - b| / |b|.
   inline double relative_difference(const double a, const double b)
   {
