@@ -32,6 +32,7 @@ namespace lentus::meshes
     double      size;   ///< radius or half-gap [m]
     double      length; ///< [m]
     double      flow_fraction = 1.; ///< share of the section's flow the mesh carries (0.5: half a slit)
+    double      inner = 0.; ///< circular only: radius of a concentric core (mandrel) [m], 0 for none
   };
 
   /// A sized shape, ready to mesh.

@@ -152,8 +152,8 @@ def picture_viscosity(case, view, path):
 
 def die_lines(case):
     """Axial direction, centreline and wall of a die from its exit profile and mesh:
-    the exit lies across the flow; the centreline (axis or symmetry plane) is the least
-    transverse coordinate; the wall is the rest of the boundary without inlet and exit."""
+    the exit lies across the flow; the centreline (axis, symmetry plane or mandrel) is the
+    least transverse coordinate; the wall is the rest of the boundary without inlet and exit."""
     header, rows = case.exit_profile
     fields = case.fields
     axial = 0 if numpy.ptp(rows[:, 0]) < numpy.ptp(rows[:, 1]) else 1
@@ -174,7 +174,10 @@ def die_lines(case):
         where = "on the centreline %s = %.4g m" % (header[transverse].split(" ")[0], middle)
     else:
         on_centre = numpy.where(points[:, transverse] <= centre + tolerance)[0]
-        where = "on the axis r = 0" if case.axisymmetric else "on the symmetry plane"
+        if case.axisymmetric and centre > tolerance:  # a mandrel on the axis (tube die)
+            where = "along the mandrel r = %.4g m" % centre
+        else:
+            where = "on the axis r = 0" if case.axisymmetric else "on the symmetry plane"
     on_centre = on_centre[numpy.argsort(points[on_centre, axial])]
     edges = fields.boundary_edges()
     first, second = points[edges[:, 0]], points[edges[:, 1]]
@@ -232,8 +235,8 @@ def picture_die_profiles(case, path):
         axes.grid(True, alpha=0.3)
         axes.legend(fontsize=8, loc="best")
     save(figure, path)
-    return ("Pressure along the %s and wall shear stress along the die wall; dashed: developed-flow "
-            "values of the design numbers" % ("axis" if case.axisymmetric else "centreline"))
+    return ("Pressure %s and wall shear stress along the outer die wall; dashed: developed-flow "
+            "values of the design numbers" % where)
 
 
 def lentus_executable():

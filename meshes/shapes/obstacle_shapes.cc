@@ -9,6 +9,8 @@
 // triangulation being built, which may be a parallel::distributed::Triangulation.
 #include "meshes/shapes/obstacle_shapes.h"
 
+#include "meshes/spacing.h"
+
 #include <deal.II/grid/grid_tools.h>
 #include <deal.II/grid/manifold_lib.h>
 #include <deal.II/grid/tria.h>
@@ -31,38 +33,15 @@ namespace lentus::meshes
     constexpr dealii::types::manifold_id circle_manifold = 1; ///< faces on the obstacle
     constexpr dealii::types::manifold_id ring_manifold   = 2; ///< cells touching the obstacle
 
-    /// Points from `near` to `far` (either direction): the first cell `first` long at `near`, each
-    /// further cell `growth` times the previous, scaled to end exactly at `far`. {near} if they coincide.
-    std::vector<double> graded(const double near, const double far, const double first, const double growth)
-    {
-      const double length = std::abs(far - near);
-      if (length <= 1e-12 * first)
-        return {far};
-      const unsigned int n =
-        growth <= 1. + 1e-12 ?
-          std::max(1u, static_cast<unsigned int>(std::round(length / first))) :
-          std::max(1u, static_cast<unsigned int>(std::round(std::log1p(length * (growth - 1.) / first) / std::log(growth))));
-      std::vector<double> sizes(n);
-      double              sum = 0.;
-      for (unsigned int i = 0; i < n; ++i)
-        sum += (sizes[i] = std::pow(growth, i));
-      std::vector<double> points{near};
-      double              at = near;
-      for (unsigned int i = 0; i < n; ++i)
-        points.push_back(at += (far > near ? 1. : -1.) * length * sizes[i] / sum);
-      points.back() = far;
-      return points;
-    }
-
     /// Grid lines 0 = start ... box_low, centre, box_high ... end = total, graded away from the box.
     std::vector<double> grid_lines(const double box_low, const double centre, const double box_high, const double total,
                                    const double first, const double growth_low, const double growth_high)
     {
-      std::vector<double> lines = graded(box_low, 0., first, growth_low);
+      std::vector<double> lines = geometric(box_low, 0., first, growth_low);
       std::reverse(lines.begin(), lines.end());
       if (centre > lines.back())
         lines.push_back(centre);
-      for (const double x : graded(box_high, total, first, growth_high))
+      for (const double x : geometric(box_high, total, first, growth_high))
         lines.push_back(x);
       return lines;
     }
@@ -280,7 +259,7 @@ namespace lentus::meshes
         // disturbance of creeping flow in a tube decays exponentially with distance).
         const double   growth = 1.2;
         std::vector<double> rs{0.};
-        for (const double r : graded(outward, tube_radius, cell, 1.))
+        for (const double r : geometric(outward, tube_radius, cell, 1.))
           rs.push_back(r);
         const auto zs = grid_lines(upstream - before, upstream, upstream + after, upstream + downstream,
                                    std::min(cell, tube_radius), growth, growth);

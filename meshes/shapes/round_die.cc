@@ -2,6 +2,8 @@
 // abrupt at 90 degrees) and land, in the meridional plane (r, z), flow along +z.
 #include "meshes/shapes/round_die.h"
 
+#include "meshes/spacing.h"
+
 #include <deal.II/grid/tria.h>
 
 #include <cmath>
@@ -16,9 +18,9 @@ namespace lentus::meshes
     using rheology::Range;
     using rheology::format_value;
 
-    /// A structured mesh given by rows at increasing z, each row a list of radii from 0 outwards;
-    /// the cells between two rows span the columns both rows have (so a row with fewer columns
-    /// makes an abrupt step).
+    /// A structured mesh given by rows at increasing z, each row a list of transverse positions from
+    /// the centre (axis, symmetry plane or mandrel) outwards; the cells between two rows span the
+    /// columns both rows have (so a row with fewer columns makes an abrupt step).
     void rows_to_mesh(dealii::Triangulation<2> &triangulation,
                       const std::vector<double> &z,
                       const std::vector<std::vector<double>> &radii)
@@ -48,16 +50,14 @@ namespace lentus::meshes
       triangulation.create_triangulation(vertices, cells, dealii::SubCellData());
     }
 
-    std::vector<double> evenly(const double from, const double to, const unsigned int n)
-    {
-      std::vector<double> points;
-      for (unsigned int i = 0; i <= n; ++i)
-        points.push_back(from + (to - from) * i / n);
-      return points;
-    }
-
-    /// Round die (axisymmetric; transverse coordinate r, axis at r = 0) or flat-sheet slit die
-    /// (planar; transverse coordinate x, symmetry plane at x = 0, the half gap meshed).
+    /// Round die (axisymmetric; transverse coordinate r, axis at r = 0, or a mandrel of radius R_m
+    /// along the whole die for a tube die) or flat-sheet slit die (planar; transverse coordinate x,
+    /// symmetry plane at x = 0, the half gap meshed).
+    ///
+    /// Grading: across the flow, cells are up to 3x finer at the walls (sine grading, 3 coarse cells
+    /// across the land); along the flow, they start at the wall cell size at the entry corners and
+    /// grow by 1.3 per cell away from them, up to the channel's width; the abrupt entry's outer ring is
+    /// fine at the re-entrant corner and at the barrel wall.
     class RoundDie : public Geometry
     {
     public:
@@ -66,79 +66,82 @@ namespace lentus::meshes
                const double half_angle_degrees,
                const double land_radius_,
                const double land_length_,
-               const bool   slit_ = false)
+               const double mandrel_radius_,
+               const bool   slit_)
         : slit(slit_)
         , barrel_radius(barrel_radius_)
         , barrel_length(barrel_length_)
         , half_angle(half_angle_degrees * M_PI / 180.)
         , land_radius(land_radius_)
         , land_length(land_length_)
+        , mandrel_radius(mandrel_radius_)
       {}
 
       void create_mesh(dealii::Triangulation<2> &triangulation, const unsigned int refinement) const override
       {
-        // Coarse cells about as long as wide: the land radius gets `inner` cells.
-        const unsigned int  inner = 2;
-        const double        cell  = land_radius / inner;
-        const bool          abrupt = half_angle >= 0.5 * M_PI - 1e-12;
-        const double        cone_length = abrupt ? 0. : (barrel_radius - land_radius) / std::tan(half_angle);
-        std::vector<double> z;
+        const bool   mandrel     = mandrel_radius > 0.;
+        const bool   abrupt      = half_angle >= 0.5 * M_PI - 1e-12;
+        const double cone_length = abrupt ? 0. : (barrel_radius - land_radius) / std::tan(half_angle);
+        const double entry = barrel_length, land_start = barrel_length + cone_length;
+        const double end   = land_start + land_length;
+        const double gap   = land_radius - mandrel_radius; // the land's width across the flow
+        // Across the land: 3 cells, finer toward the wall (and the mandrel).
+        const std::vector<double> land_row = graded(mandrel_radius, land_radius, 3, mandrel, true);
+        const double              fine     = land_row.back() - land_row[land_row.size() - 2];
+        std::vector<double>       z;
         std::vector<std::vector<double>> radii;
-        const auto add_rows = [&](const double from, const double to, const std::function<std::vector<double>(double)> &row,
-                                  const double spacing, const bool include_first) {
-          const unsigned int n = std::max(1u, static_cast<unsigned int>(std::round((to - from) / spacing)));
-          for (unsigned int i = include_first ? 0 : 1; i <= n; ++i)
+        const auto add_rows = [&](const std::vector<double> &levels, const std::function<std::vector<double>(double)> &row) {
+          for (std::size_t i = z.empty() ? 0 : 1; i < levels.size(); ++i)
             {
-              const double level = from + (to - from) * i / n;
-              z.push_back(level);
-              radii.push_back(row(level));
+              z.push_back(levels[i]);
+              radii.push_back(row(levels[i]));
             }
         };
         if (abrupt)
           {
-            // Barrel: inner column [0, R_l] and outer ring [R_l, R_b]; land: inner column only.
-            const unsigned int outer = std::max(1u, static_cast<unsigned int>(std::round((barrel_radius - land_radius) / cell)));
-            const auto barrel_row = [&](double) {
-              std::vector<double> row = evenly(0., land_radius, inner);
-              const auto          ring = evenly(land_radius, barrel_radius, outer);
-              row.insert(row.end(), ring.begin() + 1, ring.end());
-              return row;
-            };
-            add_rows(0., barrel_length, barrel_row, barrel_radius / (inner + outer), true);
-            add_rows(barrel_length, barrel_length + land_length, [&](double) { return evenly(0., land_radius, inner); },
-                     cell, false);
+            // Barrel: the land's column [R_m, R_l] and an outer ring [R_l, R_b]; land: that column only.
+            std::vector<double> barrel_row = land_row;
+            append(barrel_row, stretched(land_radius, barrel_radius, fine, true, true));
+            add_rows(stretched(0., entry, fine, false, true, barrel_radius - mandrel_radius),
+                     [&](double) { return barrel_row; });
+            add_rows(stretched(entry, end, fine, true, false, gap), [&](double) { return land_row; });
           }
         else
           {
-            // One column of `columns` cells whose width follows the wall: barrel, cone, land.
-            const unsigned int columns = std::max(inner, static_cast<unsigned int>(std::round(barrel_radius / cell / 2.)));
+            // One set of columns whose width follows the wall: barrel, cone, land; as many columns as
+            // the barrel is wide in land gaps (at least 3).
+            const unsigned int columns =
+              std::max(3u, cells_for(barrel_radius - mandrel_radius, land_radius - mandrel_radius));
             const auto radius_at = [&](const double level) {
-              if (level <= barrel_length)
+              if (level <= entry)
                 return barrel_radius;
-              if (level >= barrel_length + cone_length)
+              if (level >= land_start)
                 return land_radius;
-              return barrel_radius - (level - barrel_length) * std::tan(half_angle);
+              return barrel_radius - (level - entry) * std::tan(half_angle);
             };
-            const auto row = [&](const double level) { return evenly(0., radius_at(level), columns); };
-            add_rows(0., barrel_length, row, barrel_radius / columns, true);
-            add_rows(barrel_length, barrel_length + cone_length, row, 0.5 * (barrel_radius + land_radius) / columns, false);
-            add_rows(barrel_length + cone_length, barrel_length + cone_length + land_length, row, land_radius / columns,
-                     false);
+            const auto row = [&](const double level) {
+              return graded(mandrel_radius, radius_at(level), columns, mandrel, true);
+            };
+            const double land_fine   = row(end).back() - row(end)[columns - 1];
+            const double barrel_fine = row(0.).back() - row(0.)[columns - 1];
+            add_rows(stretched(0., entry, barrel_fine, false, true, barrel_radius - mandrel_radius), row);
+            const double spacing = 0.5 * (barrel_radius + land_radius - 2. * mandrel_radius) / columns;
+            add_rows(graded(entry, land_start, cells_for(cone_length, spacing), true, true), row);
+            add_rows(stretched(land_start, end, land_fine, true, false, gap), row);
           }
         rows_to_mesh(triangulation, z, radii);
 
-        const double end = z.back();
-        const auto   roles = boundary_roles();
+        const auto roles = boundary_roles();
         for (const auto &cell_iterator : triangulation.active_cell_iterators())
           for (const auto &face : cell_iterator->face_iterators())
             if (face->at_boundary())
               {
                 const dealii::Point<2> center = face->center();
                 const double           tolerance = 1e-9 * end;
-                const char *role = std::abs(center[1]) < tolerance       ? "inlet" :
-                                   std::abs(center[1] - end) < tolerance ? "outlet" :
-                                   std::abs(center[0]) < tolerance       ? (slit ? "symmetry" : "axis") :
-                                                                           "wall";
+                const char *role = std::abs(center[1]) < tolerance                  ? "inlet" :
+                                   std::abs(center[1] - end) < tolerance            ? "outlet" :
+                                   std::abs(center[0] - mandrel_radius) < tolerance ? centre_role() :
+                                                                                      "wall";
                 face->set_boundary_id(roles.at(role));
               }
         triangulation.refine_global(refinement);
@@ -146,7 +149,7 @@ namespace lentus::meshes
 
       std::map<std::string, dealii::types::boundary_id> boundary_roles() const override
       {
-        return {{"inlet", 0}, {"outlet", 1}, {"wall", 2}, {slit ? "symmetry" : "axis", 3}};
+        return {{"inlet", 0}, {"outlet", 1}, {"wall", 2}, {centre_role(), 3}};
       }
 
       Symmetry symmetry() const override { return slit ? Symmetry::planar_only : Symmetry::axisymmetric_only; }
@@ -154,13 +157,16 @@ namespace lentus::meshes
       std::vector<StraightSection> straight_sections() const override
       {
         const double fraction = slit ? 0.5 : 1.;
-        return {{"barrel", !slit, barrel_radius, barrel_length, fraction},
-                {"land", !slit, land_radius, land_length, fraction}};
+        return {{"barrel", !slit, barrel_radius, barrel_length, fraction, mandrel_radius},
+                {"land", !slit, land_radius, land_length, fraction, mandrel_radius}};
       }
 
     private:
       bool   slit;
-      double barrel_radius, barrel_length, half_angle, land_radius, land_length;
+      double barrel_radius, barrel_length, half_angle, land_radius, land_length, mandrel_radius;
+
+      /// The role at the centre of the cross-section.
+      const char *centre_role() const { return slit ? "symmetry" : mandrel_radius > 0. ? "mandrel" : "axis"; }
     };
   } // namespace
 
@@ -180,21 +186,28 @@ namespace lentus::meshes
   {
     return {"Round die",
             "axisymmetric round die in (r, z), flow along +z: barrel (reservoir) of radius R_b and length L_b, "
-            "converging entry of half-angle alpha (90: abrupt), land of radius R_l and length L_l; roles: inlet "
-            "(z = 0), outlet (end of the land), wall, axis",
+            "converging entry of half-angle alpha (90: abrupt), land of radius R_l and length L_l; optionally "
+            "a mandrel of radius R_m along the whole die (an annular tube die); roles: inlet (z = 0), outlet "
+            "(end of the land), wall, and axis (no mandrel) or mandrel",
             {{"Barrel radius", "R_b", "m", "radius of the reservoir upstream of the die", Range::above(0.)},
              {"Barrel length", "L_b", "m", "length of the reservoir modelled", Range::above(0.)},
              entry_half_angle(),
              {"Land radius", "R_l", "m", "radius of the die land (the capillary)", Range::above(0.)},
-             {"Land length", "L_l", "m", "length of the die land", Range::above(0.)}},
+             {"Land length", "L_l", "m", "length of the die land", Range::above(0.)},
+             {"Mandrel radius", "R_m", "m", "radius of a mandrel on the axis through the whole die (tube die); 0 for none",
+              Range::at_least(0.), 0.}},
             [](const std::vector<double> &v) -> std::unique_ptr<Geometry> {
               if (!(v[3] < v[0]))
                 throw InvalidParameter("Land radius", format_value(v[3]),
                                        "not smaller than Barrel radius = " + format_value(v[0]),
                                        "Land radius < Barrel radius");
-              return std::make_unique<RoundDie>(v[0], v[1], v[2], v[3], v[4]);
+              if (!(v[5] < v[3]))
+                throw InvalidParameter("Mandrel radius", format_value(v[5]),
+                                       "not smaller than Land radius = " + format_value(v[3]),
+                                       "0 <= Mandrel radius < Land radius");
+              return std::make_unique<RoundDie>(v[0], v[1], v[2], v[3], v[4], v[5], false);
             },
-            {0.01, 0.02, 30., 0.0015, 0.015}};
+            {0.01, 0.02, 30., 0.0015, 0.015, 0.}};
   }
 
   ShapeInfo slit_die_shape()
@@ -214,7 +227,7 @@ namespace lentus::meshes
                 throw InvalidParameter("Land half-gap", format_value(v[3]),
                                        "not smaller than Manifold half-gap = " + format_value(v[0]),
                                        "Land half-gap < Manifold half-gap");
-              return std::make_unique<RoundDie>(v[0], v[1], v[2], v[3], v[4], true);
+              return std::make_unique<RoundDie>(v[0], v[1], v[2], v[3], v[4], 0., true);
             },
             {0.003, 0.01, 45., 0.0005, 0.02}};
   }

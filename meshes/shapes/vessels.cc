@@ -3,6 +3,8 @@
 // blade's sides are straight (x, y) lines at distance w/2 from the blade's centre line.
 #include "meshes/shapes/vessels.h"
 
+#include "meshes/spacing.h"
+
 #include <deal.II/grid/grid_tools.h>
 #include <deal.II/grid/manifold_lib.h>
 #include <deal.II/grid/tria.h>
@@ -18,86 +20,6 @@ namespace lentus::meshes
     using rheology::ParameterInfo;
     using rheology::Range;
     using rheology::format_value;
-
-    /// n + 1 points from `from` to `to`, cells smaller (up to 3x) toward the ends marked fine.
-    std::vector<double> graded(const double from, const double to, const unsigned int n,
-                               const bool fine_start, const bool fine_end)
-    {
-      const double a = 0.5;
-      std::vector<double> points;
-      for (unsigned int i = 0; i <= n; ++i)
-        {
-          const double s = static_cast<double>(i) / n;
-          double       f = s;
-          if (fine_start && fine_end)
-            f = s - a * std::sin(2. * M_PI * s) / (2. * M_PI);
-          else if (fine_start)
-            f = s - a * std::sin(M_PI * s) / M_PI;
-          else if (fine_end)
-            f = s + a * std::sin(M_PI * s) / M_PI;
-          points.push_back(from + (to - from) * f);
-        }
-      points.front() = from;
-      points.back()  = to;
-      return points;
-    }
-
-    /// Points from `from` to `to` whose cells start at about `fine` at the ends marked fine and
-    /// grow by a factor 1.3 per cell away from them (uniform cells of about 2 `fine` if neither).
-    std::vector<double> stretched(const double from, const double to, const double fine,
-                                  const bool fine_start, const bool fine_end)
-    {
-      const double length = to - from, growth = 1.3;
-      if (!fine_start && !fine_end)
-        {
-          const unsigned int n = std::max(1u, static_cast<unsigned int>(std::lround(length / (2. * fine))));
-          return graded(from, to, n, false, false);
-        }
-      // One-sided progression over `span` starting fine: sizes f q^i scaled to fill the span exactly.
-      const auto one_sided = [&](const double span) {
-        const auto n = std::max(1u, static_cast<unsigned int>(std::ceil(
-                                      std::log(1. + span * (growth - 1.) / fine) / std::log(growth) - 1e-9)));
-        std::vector<double> sizes;
-        double              total = 0.;
-        for (unsigned int i = 0; i < n; ++i)
-          {
-            sizes.push_back(std::pow(growth, i));
-            total += sizes.back();
-          }
-        for (double &size : sizes)
-          size *= span / total;
-        return sizes;
-      };
-      std::vector<double> sizes;
-      if (fine_start && fine_end)
-        {
-          sizes = one_sided(0.5 * length);
-          const std::vector<double> mirrored(sizes.rbegin(), sizes.rend());
-          sizes.insert(sizes.end(), mirrored.begin(), mirrored.end());
-        }
-      else
-        {
-          sizes = one_sided(length);
-          if (fine_end)
-            std::reverse(sizes.begin(), sizes.end());
-        }
-      std::vector<double> points{from};
-      for (const double size : sizes)
-        points.push_back(points.back() + size);
-      points.back() = to;
-      return points;
-    }
-
-    unsigned int cells_for(const double length, const double size)
-    {
-      return std::max(1u, static_cast<unsigned int>(std::lround(length / size)));
-    }
-
-    /// Appends the points of `more` without its first (shared) point.
-    void append(std::vector<double> &points, const std::vector<double> &more)
-    {
-      points.insert(points.end(), points.empty() ? more.begin() : more.begin() + 1, more.end());
-    }
 
     /// Axisymmetric vessel in (r, z): tank of radius R_T filled to H, a disk of diameter D and
     /// thickness t whose mid-plane is at clearance C above the bottom, on a shaft of radius r_s

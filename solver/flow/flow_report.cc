@@ -288,17 +288,30 @@ namespace lentus::flow
           {
             // The whole section's flow (a half slit carries half of it).
             const double throughput = modelled / section.flow_fraction;
+            const bool   annulus    = section.pipe && section.inner > 0.;
+            using Channel           = DevelopedProfile::Channel;
             const DevelopedProfile profile(*state.law,
-                                           section.pipe ? DevelopedProfile::Channel::pipe : DevelopedProfile::Channel::slit,
-                                           section.size, throughput);
+                                           annulus ? Channel::annulus : section.pipe ? Channel::pipe : Channel::slit,
+                                           section.size, throughput, section.inner);
             const double wall_stress = profile.wall_stress();
-            const double drop        = wall_stress * section.length / (section.pipe ? 0.5 * section.size : section.size);
+            const double drop        = std::abs(profile.pressure_gradient()) * section.length;
             developed += drop;
             numbers.push_back({"developed pressure drop in the " + section.name, drop, "Pa"});
+            // Annulus: the mean over both walls' perimeters, then each wall.
             numbers.push_back({"developed wall shear stress in the " + section.name, wall_stress, "Pa"});
-            // Apparent wall shear rate 4Q/(pi R^3) (pipe) or 3q/(2h^2) per unit depth (slit), true rate from the law.
-            const double apparent = section.pipe ? 4. * throughput / (M_PI * std::pow(section.size, 3)) :
-                                                   1.5 * throughput / std::pow(section.size, 2);
+            if (annulus)
+              {
+                numbers.push_back({"developed wall shear stress on the mandrel in the " + section.name,
+                                   profile.inner_wall_stress(), "Pa"});
+                numbers.push_back({"developed wall shear stress on the outer wall in the " + section.name,
+                                   profile.outer_wall_stress(), "Pa"});
+              }
+            // Apparent wall shear rate: 4Q/(pi R^3) (pipe), 3q/(2h^2) per unit depth (slit), and for an
+            // annulus the slit value of its gap: 6Q/(pi (R + a)(R - a)^2); the true rate from the law.
+            const double apparent =
+              annulus      ? 6. * throughput / (M_PI * (section.size + section.inner) * std::pow(section.size - section.inner, 2)) :
+              section.pipe ? 4. * throughput / (M_PI * std::pow(section.size, 3)) :
+                             1.5 * throughput / std::pow(section.size, 2);
             numbers.push_back({"apparent wall shear rate in the " + section.name, apparent, "1/s"});
             numbers.push_back(
               {"wall shear rate in the " + section.name, inverse_shear_rate(*state.law, wall_stress), "1/s"});
@@ -306,7 +319,8 @@ namespace lentus::flow
             last_wall_stress = wall_stress;
           }
         numbers.push_back({"entrance pressure loss", total_drop - developed, "Pa"});
-        // In radii (half-gaps) of the last section: dp_entrance = 2 tau_w e.
+        // dp_entrance = 2 tau_w e, so that dp = 2 tau_w (L/D + e) with D the radius (pipe) or the full
+        // gap (slit; annulus, with the perimeter-mean wall stress) of the last section.
         numbers.push_back({"entrance loss coefficient (Bagley end correction)",
                            (total_drop - developed) / (2. * last_wall_stress), "-"});
       }

@@ -13,6 +13,7 @@
 #include <deal.II/numerics/vector_tools.h>
 
 #include <iostream>
+#include <set>
 
 namespace lentus::flow
 {
@@ -90,12 +91,22 @@ namespace lentus::flow
       int    normal_axis;  ///< 0: normal along x (r), 1: along y (z)
       double normal_sign;  ///< +1 if the outward normal points along +axis
       double low, high;    ///< range of the other coordinate
+      double position;     ///< the normal coordinate of the segment
+
+      /// The segment's end at the other coordinate `at` (low or high).
+      Point<2> end(const double at) const
+      {
+        Point<2> point;
+        point[normal_axis]     = position;
+        point[1 - normal_axis] = at;
+        return point;
+      }
     };
 
     Extent extent_of(const FlowState &state, const types::boundary_id id, const std::string &role)
     {
       // Ranks without faces of the role keep values that lose every max/min reduction.
-      double axis = -1., sign = -HUGE_VAL, low = HUGE_VAL, high = -HUGE_VAL;
+      double axis = -1., sign = -HUGE_VAL, low = HUGE_VAL, high = -HUGE_VAL, position = -HUGE_VAL;
       for (const auto &cell : state.triangulation.active_cell_iterators())
         if (cell->is_locally_owned())
           for (const auto face_no : cell->face_indices())
@@ -110,7 +121,8 @@ namespace lentus::flow
                                    "': pressure, symmetry and inflow conditions need boundaries parallel to a "
                                    "coordinate axis in this version");
                 axis = face_axis;
-                sign = face->center()[face_axis] > cell->center()[face_axis] ? 1. : -1.;
+                sign     = face->center()[face_axis] > cell->center()[face_axis] ? 1. : -1.;
+                position = face->center()[face_axis];
                 for (unsigned int v = 0; v < 2; ++v)
                   {
                     low  = std::min(low, face->vertex(v)[1 - face_axis]);
@@ -118,7 +130,27 @@ namespace lentus::flow
                   }
               }
       return {static_cast<int>(Utilities::MPI::max(axis, state.comm)), Utilities::MPI::max(sign, state.comm),
-              Utilities::MPI::min(low, state.comm), Utilities::MPI::max(high, state.comm)};
+              Utilities::MPI::min(low, state.comm), Utilities::MPI::max(high, state.comm),
+              Utilities::MPI::max(position, state.comm)};
+    }
+
+    /// Whether a boundary face of a role with a symmetry condition has a vertex at `point`.
+    bool symmetry_at(const FlowState &state, const Point<2> &point, const double tolerance)
+    {
+      const auto                    roles = state.flow.geometry->boundary_roles();
+      std::set<types::boundary_id>  symmetric;
+      for (const input::BoundaryCondition &bc : state.flow.conditions)
+        if (bc.type == input::BoundaryCondition::Type::symmetry)
+          symmetric.insert(roles.at(bc.role));
+      int found = 0;
+      for (const auto &cell : state.triangulation.active_cell_iterators())
+        if (cell->is_locally_owned())
+          for (const auto face_no : cell->face_indices())
+            if (cell->face(face_no)->at_boundary() && symmetric.count(cell->face(face_no)->boundary_id()))
+              for (unsigned int v = 0; v < 2; ++v)
+                if (cell->face(face_no)->vertex(v).distance(point) < tolerance)
+                  found = 1;
+      return Utilities::MPI::max(found, state.comm) > 0;
     }
 
     int axis_of_normal(const FlowState &state, const types::boundary_id id, const std::string &role)
@@ -126,7 +158,9 @@ namespace lentus::flow
       return extent_of(state, id, role).normal_axis;
     }
 
-    /// The developed inflow profile on one role, as a velocity field.
+    /// The developed inflow profile on one role, as a velocity field: planar, a slit between walls, or
+    /// half of one where an end of the role meets a symmetry role (the midplane); axisymmetric, a pipe
+    /// when the role reaches the axis, else an annulus with walls at both ends.
     class InflowVelocity : public Function<2>
     {
     public:
@@ -135,13 +169,28 @@ namespace lentus::flow
         , extent(where)
         , axisymmetric(is_axisymmetric(state.kind))
       {
-        const bool pipe = axisymmetric;
-        if (pipe && (extent.normal_axis != 1 || std::abs(extent.low) > 1e-12 * std::abs(extent.high)))
+        using Channel = DevelopedProfile::Channel;
+        const double width = extent.high - extent.low;
+        if (axisymmetric)
+          {
+            if (extent.normal_axis != 1)
+              throw InputError("boundary role '" + bc.role + "': an axisymmetric inflow must lie at constant z");
+            const bool annulus = extent.low > 1e-9 * extent.high;
+            profile = std::make_unique<DevelopedProfile>(*state.law, annulus ? Channel::annulus : Channel::pipe,
+                                                         extent.high, bc.flow_rate, annulus ? extent.low : 0.);
+            return;
+          }
+        const bool low_midplane  = symmetry_at(state, extent.end(extent.low), 1e-9 * width);
+        const bool high_midplane = symmetry_at(state, extent.end(extent.high), 1e-9 * width);
+        if (low_midplane && high_midplane)
           throw InputError("boundary role '" + bc.role +
-                           "': an axisymmetric inflow must lie at constant z and reach from the axis to the wall");
-        const double half = pipe ? extent.high : 0.5 * (extent.high - extent.low);
-        profile           = std::make_unique<DevelopedProfile>(
-          *state.law, pipe ? DevelopedProfile::Channel::pipe : DevelopedProfile::Channel::slit, half, bc.flow_rate);
+                           "': an inflow between two symmetry roles has no developed profile; give the "
+                           "inflow a wall on at least one side");
+        // A half slit (midplane at one end) carries half of the full slit's flow.
+        midplane = low_midplane ? extent.low : high_midplane ? extent.high : 0.5 * (extent.low + extent.high);
+        const bool half = low_midplane || high_midplane;
+        profile = std::make_unique<DevelopedProfile>(*state.law, Channel::slit, half ? width : 0.5 * width,
+                                                     half ? 2. * bc.flow_rate : bc.flow_rate);
       }
 
       double value(const Point<2> &x, const unsigned int component) const override
@@ -149,13 +198,14 @@ namespace lentus::flow
         if (static_cast<int>(component) != extent.normal_axis)
           return 0.;
         const int    t = 1 - extent.normal_axis;
-        const double s = axisymmetric ? x[t] : x[t] - 0.5 * (extent.low + extent.high);
+        const double s = axisymmetric ? x[t] : x[t] - midplane;
         return -extent.normal_sign * profile->velocity(s); // into the domain
       }
 
     private:
       Extent                            extent;
       bool                              axisymmetric;
+      double                            midplane = 0.;
       std::unique_ptr<DevelopedProfile> profile;
     };
   } // namespace

@@ -1,8 +1,11 @@
-// Round die: abrupt axisymmetric 4:1 contraction in creeping Newtonian flow.
+// Dies: abrupt axisymmetric and planar 4:1 contractions in creeping Newtonian flow, a tube die
+// (round die with a mandrel), and developed power-law flow in an annulus.
+#include "../reference/annulus.h"
 #include "run_case.h"
 
 #include <gtest/gtest.h>
 
+#include <array>
 #include <cmath>
 #include <fstream>
 #include <iostream>
@@ -11,7 +14,11 @@
 
 namespace
 {
-  const char *contraction = R"(subsection Rheology
+  /// Abrupt axisymmetric 4:1 contraction: barrel R = 4, land R = 1, both 10 long [m]; Newtonian,
+  /// mu = 1 Pa s, Q = 1 m^3/s. With a mandrel of radius `mandrel` > 0 through the whole die: a tube die.
+  std::string contraction(const double mandrel = 0.)
+  {
+    return R"(subsection Rheology
   set Viscosity law = Newtonian
   subsection Newtonian
     set Viscosity = 1
@@ -25,20 +32,42 @@ subsection Geometry
     set Entry half-angle = 90
     set Land radius      = 1
     set Land length      = 10
+    set Mandrel radius   = )" + std::to_string(mandrel) + R"(
   end
 end
 subsection Flow
   set Formulation = axisymmetric
 end
 subsection Boundary conditions
-  set No-slip         = wall
-  set Axis            = axis
+  set No-slip         = wall)" + (mandrel > 0. ? ", mandrel" : "\n  set Axis            = axis") + R"(
   set Inflow          = inlet
   set Inflow rates    = 1
   set Pressure        = outlet
   set Pressure values = 0
 end
 )";
+  }
+
+  /// The rows (r, outflow velocity) of an axisymmetric run's exit_profile.csv; checks the header and
+  /// that the tangential velocity vanishes (a developed exit at a set pressure).
+  std::vector<std::array<double, 2>> exit_profile(const std::string &folder)
+  {
+    std::vector<std::array<double, 2>> rows;
+    std::ifstream                      profile("verification_out/" + folder + "/exit_profile.csv");
+    std::string                        line;
+    EXPECT_TRUE(std::getline(profile, line)) << "no exit_profile.csv in " << folder;
+    EXPECT_EQ(line, "r [m],z [m],outflow velocity [m/s],tangential velocity [m/s]");
+    while (std::getline(profile, line))
+      {
+        double            r, z, u, t;
+        char              comma;
+        std::stringstream fields(line);
+        fields >> r >> comma >> z >> comma >> u >> comma >> t;
+        EXPECT_NEAR(t, 0., 1e-12);
+        rows.push_back({r, u});
+      }
+    return rows;
+  }
 } // namespace
 
 TEST(RoundDie, AbruptContractionEntranceLoss)
@@ -46,7 +75,7 @@ TEST(RoundDie, AbruptContractionEntranceLoss)
   std::vector<double> coefficient, drop;
   for (const int level : {0, 1, 2})
     {
-      const auto result = lentus::testing::run_case("contraction_" + std::to_string(level), contraction,
+      const auto result = lentus::testing::run_case("contraction_" + std::to_string(level), contraction(),
                                                     {"Geometry/Refinement=" + std::to_string(level)});
       ASSERT_TRUE(result.converged) << result.reason;
       // Analytic (Hagen-Poiseuille; CHECKS.md A2 with n = 1): developed wall stress 4 mu Q/(pi R^3),
@@ -74,22 +103,10 @@ TEST(RoundDie, AbruptContractionEntranceLoss)
 
   // Exit velocity profile (exit_profile.csv): the land is long (10 radii), so the exit is developed:
   // Hagen-Poiseuille u(r) = 2 V (1 - r^2/R^2), V = Q / (pi R^2) = 1/pi m/s (analytic); within 1% of 2V.
-  std::ifstream profile("verification_out/contraction_2/exit_profile.csv");
-  std::string   line;
-  ASSERT_TRUE(std::getline(profile, line)) << "no exit_profile.csv";
-  EXPECT_EQ(line, "r [m],z [m],outflow velocity [m/s],tangential velocity [m/s]");
-  int rows = 0;
-  while (std::getline(profile, line))
-    {
-      double            r, z, u, t;
-      char              comma;
-      std::stringstream fields(line);
-      fields >> r >> comma >> z >> comma >> u >> comma >> t;
-      EXPECT_NEAR(u, 2. / M_PI * (1. - r * r), 0.01 * 2. / M_PI) << "r = " << r;
-      EXPECT_NEAR(t, 0., 1e-12);
-      ++rows;
-    }
-  EXPECT_GE(rows, 9);
+  const auto rows = exit_profile("contraction_2");
+  for (const auto &[r, u] : rows)
+    EXPECT_NEAR(u, 2. / M_PI * (1. - r * r), 0.01 * 2. / M_PI) << "r = " << r;
+  EXPECT_GE(rows.size(), 9u);
 }
 
 TEST(SlitDie, AbruptContractionDevelopedFlowAndEnergy)
@@ -142,4 +159,86 @@ end
   // The total exceeds the developed drops (land 15 Pa; manifold tau_w L / h = (1.5 / 16) * 10 / 4 =
   // 0.234375 Pa): the entrance loss of a Newtonian contraction is positive.
   EXPECT_GT(drop[2], 15. + 0.234375);
+}
+
+TEST(TubeDie, NewtonianAnnularLandEnergyAndMeshConvergence)
+{
+  // Abrupt 4:1 round die with a mandrel of half the land radius through the whole die (a tube die).
+  const std::string text = contraction(0.5);
+  // Exact annulus (Bird, Stewart & Lightfoot 2002, section 2.4; tests/reference/annulus.h): G from Q = 1.
+  const double k = 0.5, G_land = 1. / lentus::testing::newtonian_annulus_flow_rate(1., 1., k, 1.);
+  const double G_barrel  = 1. / lentus::testing::newtonian_annulus_flow_rate(1., 4., 0.125, 1.);
+  const double lambda2   = (1. - k * k) / (2. * std::log(1. / k));
+  const double tau_inner = 0.5 * G_land * (lambda2 / k - k), tau_outer = 0.5 * G_land * (1. - lambda2);
+  std::vector<double> drop;
+  for (const int level : {0, 1, 2})
+    {
+      const auto result = lentus::testing::run_case("tube_die_" + std::to_string(level), text,
+                                                    {"Geometry/Refinement=" + std::to_string(level)});
+      ASSERT_TRUE(result.converged) << result.reason;
+      EXPECT_NEAR(result.number("developed pressure drop in the land"), 10. * G_land, 1e-5 * 10. * G_land);
+      EXPECT_NEAR(result.number("developed pressure drop in the barrel"), 10. * G_barrel, 1e-5 * 10. * G_barrel);
+      EXPECT_NEAR(result.number("developed wall shear stress on the mandrel in the land"), tau_inner, 1e-5 * tau_inner);
+      EXPECT_NEAR(result.number("developed wall shear stress on the outer wall in the land"), tau_outer,
+                  1e-5 * tau_outer);
+      // Perimeter mean (force balance, exact): G (R - a) / 2.
+      EXPECT_NEAR(result.number("developed wall shear stress in the land"), 0.25 * G_land, 1e-5 * G_land);
+      // Analytic (virtual power): power input = viscous dissipation within 0.5%.
+      EXPECT_NEAR(result.number("power input through boundaries"), result.number("viscous dissipation"),
+                  0.005 * result.number("viscous dissipation"));
+      drop.push_back(result.number("pressure drop inlet to outlet"));
+      // The total exceeds the developed drops (Newtonian entrance loss is positive).
+      EXPECT_GT(drop.back(), 10. * (G_land + G_barrel));
+    }
+  std::cout << "tube die pressure drop at levels 0, 1, 2: " << drop[0] << ", " << drop[1] << ", " << drop[2]
+            << std::endl;
+  // Mesh convergence (common practice: three levels): under 1% between the finest two.
+  EXPECT_LT(std::abs(drop[2] - drop[1]), 0.01 * drop[2]);
+
+  // Exit profile: the land is 20 gaps long, so the exit is developed (Bird, Stewart & Lightfoot 2002,
+  // section 2.4): u(r) = (G R^2 / 4 mu) [1 - (r/R)^2 + (1 - k^2) ln(r/R) / ln(1/k)]; within 1% of its peak.
+  const double  peak = 0.25 * G_land * (1. - lambda2 + lambda2 * std::log(lambda2));
+  const auto rows = exit_profile("tube_die_2");
+  for (const auto &[r, u] : rows)
+    {
+      const double exact = 0.25 * G_land * (1. - r * r + (1. - k * k) * std::log(r) / std::log(1. / k));
+      EXPECT_NEAR(u, exact, 0.01 * peak) << "r = " << r;
+      EXPECT_GE(r, 0.5 - 1e-12);
+    }
+  EXPECT_GE(rows.size(), 9u);
+}
+
+TEST(AnnularPipe, PowerLawPressureDropMatchesExactForm)
+{
+  // Axial flow of a power-law fluid (n = 0.5) up an annular gap 0.5 < r < 1, 4 long: the inflow gets the
+  // developed annulus profile, so the computed pressure drop is G L with G from the exact form of
+  // Hanks & Larsen 1979 (CHECKS.md A9; tests/reference/annulus.h) at the same flow rate; within 0.5%.
+  const double G    = 2.;
+  const auto   flow = lentus::testing::power_law_annulus(1., 0.5, 1., 0.5, G);
+  const std::string text = lentus::testing::power_law(0.5) + R"(subsection Geometry
+  set Shape = Annular gap
+  set Refinement = 2
+  subsection Annular gap
+    set Inner radius = 0.5
+    set Outer radius = 1
+    set Height       = 4
+  end
+end
+subsection Flow
+  set Formulation = axisymmetric
+end
+subsection Boundary conditions
+  set No-slip         = inner wall, outer wall
+  set Inflow          = bottom
+  set Inflow rates    = )" + std::to_string(flow.flow_rate) + R"(
+  set Pressure        = top
+  set Pressure values = 0
+end
+)";
+  const auto result = lentus::testing::run_case("power_law_annulus", text);
+  ASSERT_TRUE(result.converged) << result.reason;
+  EXPECT_NEAR(result.number("mean pressure on bottom"), 4. * G, 0.005 * 4. * G);
+  // Analytic (virtual power): power input = viscous dissipation within 0.5%.
+  EXPECT_NEAR(result.number("power input through boundaries"), result.number("viscous dissipation"),
+              0.005 * result.number("viscous dissipation"));
 }
