@@ -341,51 +341,6 @@ namespace lentus::flow
     return numbers;
   }
 
-  std::string exit_profile_csv(const FlowState &state)
-  {
-    const auto roles = state.flow.geometry->boundary_roles();
-    if (!roles.count("outlet"))
-      return "";
-    const types::boundary_id outlet = roles.at("outlet");
-    // Nodes of the outlet faces: the face's support points of the first velocity component.
-    const Quadrature<1> nodes(state.fe.base_element(0).get_unit_face_support_points());
-    FEFaceValues<2>     face_values(state.fe, nodes, update_values | update_quadrature_points | update_normal_vectors);
-    std::vector<dealii::Vector<double>> values(nodes.size(), dealii::Vector<double>(state.n_velocity + 1));
-    std::vector<std::array<double, 5>>  rows; // transverse coordinate, x, y, normal velocity, tangential velocity
-    for (const auto &cell : state.dof_handler.active_cell_iterators())
-      if (cell->is_locally_owned())
-        for (const auto face_no : cell->face_indices())
-          if (cell->face(face_no)->at_boundary() && cell->face(face_no)->boundary_id() == outlet)
-            {
-              face_values.reinit(cell, face_no);
-              face_values.get_function_values(state.solution, values);
-              for (unsigned int q = 0; q < nodes.size(); ++q)
-                {
-                  const Point<2>     &x = face_values.quadrature_point(q);
-                  const Tensor<1, 2> &n = face_values.normal_vector(q);
-                  const int           t = std::abs(n[0]) > std::abs(n[1]) ? 1 : 0;
-                  const double        normal = values[q][0] * n[0] + values[q][1] * n[1];
-                  const double        tangential = values[q][0] * n[1] - values[q][1] * n[0];
-                  rows.push_back(std::array<double, 5>{{x[t], x[0], x[1], normal, tangential}});
-                }
-            }
-    const auto all = Utilities::MPI::gather(state.comm, rows, 0);
-    if (state.rank != 0)
-      return "";
-    std::vector<std::array<double, 5>> merged;
-    for (const auto &part : all)
-      merged.insert(merged.end(), part.begin(), part.end());
-    std::sort(merged.begin(), merged.end());
-    std::ostringstream csv;
-    csv << (is_axisymmetric(state.kind) ? "r [m],z [m]" : "x [m],y [m]")
-        << ",outflow velocity [m/s],tangential velocity [m/s]\n";
-    csv.precision(10);
-    for (std::size_t i = 0; i < merged.size(); ++i)
-      if (i == 0 || std::abs(merged[i][0] - merged[i - 1][0]) > 1e-12 * (std::abs(merged[i][0]) + 1e-300))
-        csv << merged[i][1] << ',' << merged[i][2] << ',' << merged[i][3] << ',' << merged[i][4] << '\n';
-    return csv.str();
-  }
-
   void write_fields(const FlowState &state, const std::string &folder)
   {
     DataOut<2>               data_out;

@@ -125,6 +125,7 @@ namespace lentus::flow
     if (flow.write_fields)
       write_fields(state, partial.string());
     const std::string exit_profile = exit_profile_csv(state);
+    const std::string wall_profile = wall_profile_csv(state);
 
     state.log.line(report.converged ? "Converged." : "NOT CONVERGED: " + report.reason);
     state.log.line("Design numbers" + std::string(report.converged ? "" : " (of the last iterate, not converged)") + ":");
@@ -175,6 +176,8 @@ namespace lentus::flow
         report::write_file_atomically((partial / "log.txt").string(), state.log.text());
         if (!exit_profile.empty())
           report::write_file_atomically((partial / "exit_profile.csv").string(), exit_profile);
+        if (!wall_profile.empty())
+          report::write_file_atomically((partial / "wall_profile.csv").string(), wall_profile);
         std::filesystem::remove_all(folder);
         if (folder.has_parent_path())
           std::filesystem::create_directories(folder.parent_path());

@@ -48,6 +48,29 @@ end
 )";
   }
 
+  /// Wall shear stress [Pa] from wall_profile.csv at the points of `role` with z in [from, to].
+  std::vector<double> wall_stresses(const std::string &folder, const std::string &role, const double from,
+                                    const double to)
+  {
+    std::vector<double> stresses;
+    std::ifstream       profile("verification_out/" + folder + "/wall_profile.csv");
+    std::string         line;
+    EXPECT_TRUE(std::getline(profile, line)) << "no wall_profile.csv in " << folder;
+    EXPECT_EQ(line, "role,r [m],z [m],wall shear rate [1/s],wall shear stress [Pa]");
+    while (std::getline(profile, line))
+      {
+        std::stringstream fields(line);
+        std::string       name, cell;
+        std::getline(fields, name, ',');
+        std::vector<double> numbers;
+        while (std::getline(fields, cell, ','))
+          numbers.push_back(std::stod(cell));
+        if (name == role && numbers.size() == 4 && numbers[1] >= from && numbers[1] <= to)
+          stresses.push_back(numbers[3]);
+      }
+    return stresses;
+  }
+
   /// The rows (r, outflow velocity) of an axisymmetric run's exit_profile.csv; checks the header and
   /// that the tangential velocity vanishes (a developed exit at a set pressure).
   std::vector<std::array<double, 2>> exit_profile(const std::string &folder)
@@ -103,6 +126,13 @@ TEST(RoundDie, AbruptContractionEntranceLoss)
 
   // Exit velocity profile (exit_profile.csv): the land is long (10 radii), so the exit is developed:
   // Hagen-Poiseuille u(r) = 2 V (1 - r^2/R^2), V = Q / (pi R^2) = 1/pi m/s (analytic); within 1% of 2V.
+  // Wall shear stress along the land away from its ends (z from 13 to 19.5 m): Hagen-Poiseuille
+  // 4 mu Q / (pi R^3) = 4 / pi Pa (analytic) within 1%.
+  const auto land = wall_stresses("contraction_2", "wall", 13., 19.5);
+  EXPECT_GE(land.size(), 4u);
+  for (const double stress : land)
+    EXPECT_NEAR(stress, 4. / M_PI, 0.01 * 4. / M_PI);
+
   const auto rows = exit_profile("contraction_2");
   for (const auto &[r, u] : rows)
     EXPECT_NEAR(u, 2. / M_PI * (1. - r * r), 0.01 * 2. / M_PI) << "r = " << r;
@@ -198,6 +228,17 @@ TEST(TubeDie, NewtonianAnnularLandEnergyAndMeshConvergence)
   // Exit profile: the land is 20 gaps long, so the exit is developed (Bird, Stewart & Lightfoot 2002,
   // section 2.4): u(r) = (G R^2 / 4 mu) [1 - (r/R)^2 + (1 - k^2) ln(r/R) / ln(1/k)]; within 1% of its peak.
   const double  peak = 0.25 * G_land * (1. - lambda2 + lambda2 * std::log(lambda2));
+  // Along the land away from its ends (z from 15 to 19.5 m: 10 gaps after the entry), the computed
+  // wall shear stress on each wall is the developed one (same source) within 1%.
+  const auto mandrel = wall_stresses("tube_die_2", "mandrel", 15., 19.5);
+  const auto outer   = wall_stresses("tube_die_2", "wall", 15., 19.5);
+  EXPECT_GE(mandrel.size(), 4u);
+  EXPECT_GE(outer.size(), 4u);
+  for (const double stress : mandrel)
+    EXPECT_NEAR(stress, tau_inner, 0.01 * tau_inner);
+  for (const double stress : outer)
+    EXPECT_NEAR(stress, tau_outer, 0.01 * tau_outer);
+
   const auto rows = exit_profile("tube_die_2");
   for (const auto &[r, u] : rows)
     {
