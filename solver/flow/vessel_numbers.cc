@@ -1,5 +1,6 @@
 // Vessel numbers. The cavern is the set of yielded cells connected through faces to the
-// impeller; it is found on rank 0 from every rank's cells (a 2D mesh's cell list is small).
+// impeller; it is found on rank 0 from every rank's cells (a 2D mesh's cell list is small). Its
+// radius and height come from the yield surface interpolated on a grid of points in each cell.
 #include "solver/flow/vessel_numbers.h"
 
 #include <deal.II/base/mpi.h>
@@ -114,6 +115,20 @@ namespace lentus::flow
     double                                 sums[4] = {0., 0., 0., 0.}; // area, volume, dead area, dead volume
     std::vector<CellRecord>                records;
     double                                 scale = 0.;
+    // The cavern's extent: the yield margin |tau| - tau_y on a grid of samples x samples points of each
+    // cell, edges included; where it changes sign between grid neighbours, the yield surface lies at
+    // the linear interpolant's zero.
+    const unsigned int            samples = 5;
+    std::vector<Point<2>>         grid;
+    for (unsigned int j = 0; j < samples; ++j)
+      for (unsigned int i = 0; i < samples; ++i)
+        grid.emplace_back(static_cast<double>(i) / (samples - 1), static_cast<double>(j) / (samples - 1));
+    const Quadrature<2>                    sample_rule(grid);
+    FEValues<2>                            sample_values(state.fe, sample_rule,
+                                                         update_values | update_gradients | update_quadrature_points);
+    std::vector<dealii::Vector<double>>    grid_values(grid.size(), dealii::Vector<double>(state.n_velocity + 1));
+    std::vector<std::vector<Tensor<1, 2>>> grid_gradients(grid.size(), std::vector<Tensor<1, 2>>(state.n_velocity + 1));
+    std::vector<double>                    margin(grid.size());
     for (const auto &cell : state.dof_handler.active_cell_iterators())
       if (cell->is_locally_owned())
         {
@@ -144,10 +159,40 @@ namespace lentus::flow
               if (tau_y > 0. && !unyielded)
                 {
                   record[yielded] = 1.;
-                  record[radius]  = std::max(record[radius], axisymmetric ? x[0] : x.norm());
-                  record[low]     = std::min(record[low], x[1]);
-                  record[high]    = std::max(record[high], x[1]);
                   record[yielded_measure] += w;
+                }
+            }
+          if (tau_y > 0.)
+            {
+              sample_values.reinit(cell);
+              sample_values.get_function_values(state.solution, grid_values);
+              sample_values.get_function_gradients(state.solution, grid_gradients);
+              for (unsigned int k = 0; k < grid.size(); ++k)
+                {
+                  const Point<2>    &x = sample_values.quadrature_point(k);
+                  const Kinematics   u = kinematics(state.kind, x, &grid_values[k][0], grid_gradients[k].data());
+                  const Tensor<2, 3> D_ = strain_rate(u.L);
+                  const double       gamma_dot = std::sqrt(2. * contract(D_, D_));
+                  margin[k] = state.law->evaluate(gamma_dot).value * gamma_dot - tau_y;
+                }
+              const auto extend = [&](const Point<2> &x) {
+                record[yielded] = 1.;
+                record[radius]  = std::max(record[radius], axisymmetric ? x[0] : x.norm());
+                record[low]     = std::min(record[low], x[1]);
+                record[high]    = std::max(record[high], x[1]);
+              };
+              for (unsigned int k = 0; k < grid.size(); ++k)
+                {
+                  const Point<2> &x = sample_values.quadrature_point(k);
+                  if (margin[k] >= 0.)
+                    extend(x);
+                  // The neighbours to the right and above.
+                  for (const unsigned int n : {k % samples + 1 < samples ? k + 1 : k, k + samples < grid.size() ? k + samples : k})
+                    if (n != k && (margin[k] >= 0.) != (margin[n] >= 0.))
+                      {
+                        const Point<2> &y = sample_values.quadrature_point(n);
+                        extend(x + (y - x) * (margin[k] / (margin[k] - margin[n])));
+                      }
                 }
             }
           for (const auto face_no : cell->face_indices())
@@ -211,7 +256,7 @@ namespace lentus::flow
         cavern[1] = cavern[3] > 0. ? top - bottom : 0.;
       }
     MPI_Bcast(cavern, 4, MPI_DOUBLE, 0, state.comm);
-    // The cavern's extent is measured at quadrature points: it is exact to about a cell's size.
+    // The cavern's extent: interpolated yield surface within the cells (see the sample grid above).
     numbers.push_back({"cavern radius", cavern[0], "m"});
     if (axisymmetric)
       {
