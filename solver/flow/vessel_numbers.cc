@@ -1,6 +1,7 @@
 // Vessel numbers. The cavern is the set of yielded cells connected through faces to the
 // impeller; it is found on rank 0 from every rank's cells (a 2D mesh's cell list is small). Its
-// radius and height come from the yield surface interpolated on a grid of points in each cell.
+// radius and height come from the yield surface: the zero of the yield margin |tau| - tau_y,
+// sampled on a grid of points in each cell and averaged where cells share a point.
 #include "solver/flow/vessel_numbers.h"
 
 #include <deal.II/base/mpi.h>
@@ -38,18 +39,20 @@ namespace lentus::flow
 
   namespace
   {
+    /// Points per cell side of the grid on which the yield margin |tau| - tau_y is sampled.
+    constexpr unsigned int samples = 5;
+
     /// One cell as rank 0 needs it for the cavern: its four face centres, whether some of it is
-    /// yielded, whether it touches the impeller, and the extent and size of its yielded part.
-    using CellRecord = std::array<double, 14>;
+    /// yielded, whether it touches the impeller, the size of its yielded part, and the yield margin
+    /// on a samples x samples grid of points (edges included).
+    using CellRecord = std::array<double, 12 + 3 * samples * samples>;
     enum Slot
     {
       faces = 0, // 8 coordinates
       yielded = 8,
       touches_impeller,
-      radius, // largest distance of a yielded point from the axis (planar: from the origin)
-      low,    // lowest and highest yielded z (axisymmetric)
-      high,
-      yielded_measure // yielded volume (axisymmetric, per radian) or area (planar)
+      yielded_measure, // yielded volume (axisymmetric, per radian) or area (planar)
+      sample_grid = 12 // x, y, margin of each grid point, row by row
     };
 
     /// Face centres rounded to a grid much finer than any cell, as keys shared by neighbours.
@@ -115,11 +118,8 @@ namespace lentus::flow
     double                                 sums[4] = {0., 0., 0., 0.}; // area, volume, dead area, dead volume
     std::vector<CellRecord>                records;
     double                                 scale = 0.;
-    // The cavern's extent: the yield margin |tau| - tau_y on a grid of samples x samples points of each
-    // cell, edges included; where it changes sign between grid neighbours, the yield surface lies at
-    // the linear interpolant's zero.
-    const unsigned int            samples = 5;
-    std::vector<Point<2>>         grid;
+    // The yield margin on a grid of points of each cell, edges included (see the cavern below).
+    std::vector<Point<2>> grid;
     for (unsigned int j = 0; j < samples; ++j)
       for (unsigned int i = 0; i < samples; ++i)
         grid.emplace_back(static_cast<double>(i) / (samples - 1), static_cast<double>(j) / (samples - 1));
@@ -128,7 +128,6 @@ namespace lentus::flow
                                                          update_values | update_gradients | update_quadrature_points);
     std::vector<dealii::Vector<double>>    grid_values(grid.size(), dealii::Vector<double>(state.n_velocity + 1));
     std::vector<std::vector<Tensor<1, 2>>> grid_gradients(grid.size(), std::vector<Tensor<1, 2>>(state.n_velocity + 1));
-    std::vector<double>                    margin(grid.size());
     for (const auto &cell : state.dof_handler.active_cell_iterators())
       if (cell->is_locally_owned())
         {
@@ -136,9 +135,6 @@ namespace lentus::flow
           fe_values.get_function_values(state.solution, values);
           fe_values.get_function_gradients(state.solution, gradients);
           CellRecord record{};
-          record[radius] = -HUGE_VAL;
-          record[low]    = HUGE_VAL;
-          record[high]   = -HUGE_VAL;
           for (unsigned int q = 0; q < quadrature.size(); ++q)
             {
               const Point<2>    &x = fe_values.quadrature_point(q);
@@ -173,26 +169,9 @@ namespace lentus::flow
                   const Kinematics   u = kinematics(state.kind, x, &grid_values[k][0], grid_gradients[k].data());
                   const Tensor<2, 3> D_ = strain_rate(u.L);
                   const double       gamma_dot = std::sqrt(2. * contract(D_, D_));
-                  margin[k] = state.law->evaluate(gamma_dot).value * gamma_dot - tau_y;
-                }
-              const auto extend = [&](const Point<2> &x) {
-                record[yielded] = 1.;
-                record[radius]  = std::max(record[radius], axisymmetric ? x[0] : x.norm());
-                record[low]     = std::min(record[low], x[1]);
-                record[high]    = std::max(record[high], x[1]);
-              };
-              for (unsigned int k = 0; k < grid.size(); ++k)
-                {
-                  const Point<2> &x = sample_values.quadrature_point(k);
-                  if (margin[k] >= 0.)
-                    extend(x);
-                  // The neighbours to the right and above.
-                  for (const unsigned int n : {k % samples + 1 < samples ? k + 1 : k, k + samples < grid.size() ? k + samples : k})
-                    if (n != k && (margin[k] >= 0.) != (margin[n] >= 0.))
-                      {
-                        const Point<2> &y = sample_values.quadrature_point(n);
-                        extend(x + (y - x) * (margin[k] / (margin[k] - margin[n])));
-                      }
+                  record[sample_grid + 3 * k]     = x[0];
+                  record[sample_grid + 3 * k + 1] = x[1];
+                  record[sample_grid + 3 * k + 2] = state.law->evaluate(gamma_dot).value * gamma_dot - tau_y;
                 }
             }
           for (const auto face_no : cell->face_indices())
@@ -222,6 +201,52 @@ namespace lentus::flow
         std::vector<CellRecord> cells;
         for (const auto &part : all)
           cells.insert(cells.end(), part.begin(), part.end());
+        // The stress jumps across cell edges (gradients of a continuous velocity), and near the yield
+        // surface of a regularized law the jump can decide the sign of the margin. Average the margin
+        // over the cells sharing a point, so that it is continuous and its zero level (the yield
+        // surface) falls inside cells rather than on their edges.
+        std::map<std::array<long long, 2>, std::pair<double, int>> shared;
+        for (const CellRecord &cell : cells)
+          for (unsigned int k = 0; k < samples * samples; ++k)
+            {
+              auto &entry = shared[face_key(cell[sample_grid + 3 * k], cell[sample_grid + 3 * k + 1], scale)];
+              entry.first += cell[sample_grid + 3 * k + 2];
+              entry.second += 1;
+            }
+        for (CellRecord &cell : cells)
+          for (unsigned int k = 0; k < samples * samples; ++k)
+            {
+              const auto &entry = shared[face_key(cell[sample_grid + 3 * k], cell[sample_grid + 3 * k + 1], scale)];
+              cell[sample_grid + 3 * k + 2] = entry.first / entry.second;
+              if (cell[sample_grid + 3 * k + 2] >= 0.)
+                cell[yielded] = 1.;
+            }
+        double top = -HUGE_VAL, bottom = HUGE_VAL;
+        // Extends the cavern by a cell's yielded grid points and the zeros of the margin's linear
+        // interpolant between grid neighbours.
+        const auto extend_by = [&](const CellRecord &cell) {
+          const auto point = [&](const unsigned int k) {
+            return Point<2>(cell[sample_grid + 3 * k], cell[sample_grid + 3 * k + 1]);
+          };
+          const auto extend = [&](const Point<2> &x) {
+            cavern[0] = std::max(cavern[0], axisymmetric ? x[0] : x.norm());
+            top       = std::max(top, x[1]);
+            bottom    = std::min(bottom, x[1]);
+          };
+          for (unsigned int k = 0; k < samples * samples; ++k)
+            {
+              const double margin = cell[sample_grid + 3 * k + 2];
+              if (margin >= 0.)
+                extend(point(k));
+              // The neighbours to the right and above.
+              for (const unsigned int n : {k % samples + 1 < samples ? k + 1 : k, k + samples < samples * samples ? k + samples : k})
+                {
+                  const double other = cell[sample_grid + 3 * n + 2];
+                  if (n != k && (margin >= 0.) != (other >= 0.))
+                    extend(point(k) + (point(n) - point(k)) * (margin / (margin - other)));
+                }
+            }
+        };
         std::map<std::array<long long, 2>, std::vector<std::size_t>> by_face;
         for (std::size_t i = 0; i < cells.size(); ++i)
           for (unsigned int f = 0; f < 4; ++f)
@@ -234,16 +259,13 @@ namespace lentus::flow
               reached[i] = true;
               front.push_back(i);
             }
-        double top = -HUGE_VAL, bottom = HUGE_VAL;
         while (!front.empty())
           {
             const std::size_t i = front.back();
             front.pop_back();
-            cavern[0] = std::max(cavern[0], cells[i][radius]);
+            extend_by(cells[i]);
             cavern[2] += cells[i][yielded_measure];
             cavern[3] = 1.;
-            top       = std::max(top, cells[i][high]);
-            bottom    = std::min(bottom, cells[i][low]);
             for (unsigned int f = 0; f < 4; ++f)
               for (const std::size_t j :
                    by_face[face_key(cells[i][faces + 2 * f], cells[i][faces + 2 * f + 1], scale)])
@@ -256,7 +278,7 @@ namespace lentus::flow
         cavern[1] = cavern[3] > 0. ? top - bottom : 0.;
       }
     MPI_Bcast(cavern, 4, MPI_DOUBLE, 0, state.comm);
-    // The cavern's extent: interpolated yield surface within the cells (see the sample grid above).
+    // The cavern's extent: the interpolated yield surface (see the margin averaging above).
     numbers.push_back({"cavern radius", cavern[0], "m"});
     if (axisymmetric)
       {
