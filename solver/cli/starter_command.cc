@@ -138,6 +138,10 @@ namespace lentus::cli
         text << set_line("  ", "Symmetry", join(symmetry), "");
       if (!axis.empty())
         text << set_line("  ", "Axis", join(axis), "");
+      if (std::any_of(shape.parameters.begin(), shape.parameters.end(),
+                      [](const rheology::ParameterInfo &p) { return p.key == "Mandrel radius"; }))
+        text << "  # With Mandrel radius > 0 (a tube die) the role axis becomes mandrel, a wall:\n"
+             << "  # set No-slip = wall, mandrel   and no Axis line.\n";
       if (!impeller.empty())
         text << set_line("  ", "Impeller", join(impeller), "turn at Operating point/Rotation speed");
       text << "end\n";
