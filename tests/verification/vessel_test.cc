@@ -1,6 +1,6 @@
 // Stirred vessels: the planar vessel solved in the impeller's rotating frame, reduced to circular
 // Couette flow (a hub without blades), and the axisymmetric disk impeller against the torque on a
-// disk turning in an unbounded fluid.
+// disk turning in an unbounded fluid and its cavern against the cylindrical cavern model.
 #include "run_case.h"
 
 #include <gtest/gtest.h>
@@ -177,4 +177,61 @@ end
                      finer.number("impeller torque")),
             0.005);
   EXPECT_LT(relative(finer.number("impeller power"), finer.number("viscous dissipation")), 0.005);
+}
+
+TEST(DiskImpeller, CavernDiameterNearTheCylindricalCavernModel)
+{
+  // Bingham fluid (tau_y = 10 Pa, mu_p = 0.1 Pa s, M = 1000 s) stirred by a disk (D = 0.2 m, no shaft)
+  // at N = 2 rev/s in a tank of radius 0.5 m: a cavern around the disk well inside the tank. The
+  // cylindrical cavern model of Elson, Cheesman & Nienow 1986 (CHECKS.md D3; a torque balance with the
+  // yield stress on the cavern's surface): (D_c/D)^3 = Po Re_y / [pi^2 (H_c/D_c + 1/3)], Re_y =
+  // rho N^2 D^2 / tau_y, with Po and H_c taken from the computation. CHECKS.md D3 expects the computed
+  // cavern within about 10-20% of the model [from memory]; checked within 25%, D < D_c < T.
+  const std::string text = R"(subsection Rheology
+  set Viscosity law = Bingham
+  set Density = 1000
+  subsection Bingham
+    set Plastic viscosity = 0.1
+    set Yield stress = 10
+    set Regularization exponent = 1000
+  end
+end
+subsection Operating point
+  set Rotation speed = 2
+end
+subsection Geometry
+  set Shape = Disk impeller vessel
+  set Refinement = 1
+  subsection Disk impeller vessel
+    set Tank radius = 0.5
+    set Fill height = 0.6
+    set Shaft radius = 0
+    set Impeller diameter = 0.2
+    set Disk thickness = 0.01
+    set Clearance = 0.3
+  end
+end
+subsection Flow
+  set Formulation = axisymmetric with swirl
+end
+subsection Boundary conditions
+  set Impeller = impeller
+  set No-slip  = tank wall, bottom
+  set Symmetry = free surface
+  set Axis     = axis
+end
+)";
+  const auto result = run_case("disk_cavern", text);
+  ASSERT_TRUE(result.converged) << result.reason;
+  const double D = 0.2, Dc = 2. * result.number("cavern radius"), Hc = result.number("cavern height");
+  const double Po = result.number("power number"), Re_y = result.number("yield Reynolds number");
+  EXPECT_NEAR(Re_y, 1000. * 4. * D * D / 10., 1e-9 * Re_y); // its definition
+  const double model = D * std::cbrt(Po * Re_y / (M_PI * M_PI * (Hc / Dc + 1. / 3.)));
+  std::cout << "cavern diameter " << Dc << " m, height " << Hc << " m; cylindrical cavern model " << model
+            << " m (Po = " << Po << ", Re_y = " << Re_y << ")" << std::endl;
+  EXPECT_GT(Dc, D);
+  EXPECT_LT(Dc, 1.);
+  EXPECT_LT(relative(Dc, model), 0.25);
+  // Energy: the impeller's power equals the dissipation within 0.5% (virtual power).
+  EXPECT_LT(relative(result.number("impeller power"), result.number("viscous dissipation")), 0.005);
 }
