@@ -211,7 +211,8 @@ namespace lentus::flow
       for (const input::BoundaryCondition &bc : state.flow.conditions)
         {
           // Roles that fix every velocity component come first.
-          const bool fixed = is_wall(bc) || bc.type == input::BoundaryCondition::Type::inflow;
+          const bool fixed = is_wall(bc) || bc.type == input::BoundaryCondition::Type::inflow ||
+                             bc.type == input::BoundaryCondition::Type::uniform_inflow;
           if (fixed == wall_pass)
             walls_first.push_back(bc);
         }

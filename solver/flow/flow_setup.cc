@@ -311,6 +311,17 @@ namespace lentus::flow
                       values = inflow.get();
                     }
                   break;
+                case input::BoundaryCondition::Type::uniform_inflow:
+                  std::fill(mask.begin(), mask.begin() + state.n_velocity, true);
+                  if (!homogeneous)
+                    {
+                      const Extent where = extent_of(state, id, bc.role);
+                      dealii::Vector<double> velocity(n_components);
+                      velocity[where.normal_axis] = -where.normal_sign * bc.speed; // into the domain
+                      inflow = std::make_unique<Functions::ConstantFunction<2>>(velocity);
+                      values = inflow.get();
+                    }
+                  break;
                 case input::BoundaryCondition::Type::traction_free:
                   continue;
               }

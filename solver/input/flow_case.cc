@@ -35,7 +35,11 @@ namespace lentus::input
       {"Axis", BoundaryCondition::Type::axis, "Roles on the axis r = 0 (axisymmetric): u_r = 0, u_theta = 0."},
       {"Inflow", BoundaryCondition::Type::inflow,
        "Roles where the fluid enters fully developed, with the profile of its own viscosity law carrying the "
-       "flow rate of Inflow rates (a slit from wall to wall, or a pipe from the axis to the wall)."},
+       "flow rate of Inflow rates (a slit from wall to wall or half of one beside a Symmetry role; a pipe "
+       "from the axis to the wall, or an annulus between two walls)."},
+      {"Uniform inflow", BoundaryCondition::Type::uniform_inflow,
+       "Roles where the fluid enters with the same normal speed everywhere (Inflow speeds), e.g. a plug "
+       "or a far-field stream; the tangential velocity is 0."},
       {"Impeller", BoundaryCondition::Type::impeller,
        "Roles that turn with the impeller at Operating point/Rotation speed N: u_theta = 2 pi N r (swirl), "
        "u = 2 pi N e_z x r (planar, fixed frame); at rest when solved in the impeller's frame."},
@@ -56,8 +60,8 @@ namespace lentus::input
                               "= " + std::filesystem::absolute(mesh_file).lexically_normal().string() + " ");
     }
 
-    /// The developed inflow profile spans a straight segment: wall to wall (planar), or from
-    /// the axis x = 0 to the wall at constant y = z (axisymmetric). Built-in shapes are made so.
+    /// The developed inflow profile spans a straight segment: wall to wall (planar), or at constant
+    /// y = z from the axis x = 0 or between two walls (axisymmetric). Built-in shapes are made so.
     void inflow_fits(const CaseFile &file, const std::string &key, const std::string &role,
                      const meshes::GmshMesh &mesh, const FormulationKind formulation, const std::string &where)
     {
@@ -66,10 +70,10 @@ namespace lentus::input
       const auto   text = [&](const int d) {
         return rheology::format_short(box[2 * d]) + " to " + rheology::format_short(box[2 * d + 1]);
       };
-      if (is_axisymmetric(formulation) && (box[3] - box[2] > 1e-10 * size || std::abs(box[0]) > 1e-10 * size))
+      if (is_axisymmetric(formulation) && box[3] - box[2] > 1e-10 * size)
         file.fail(key, "role '" + role + "' of " + where + " spans x (r) from " + text(0) + " m and y (z) from " +
                          text(1) + " m",
-                  "an axisymmetric inflow at one z, from the axis r = 0 to the wall");
+                  "an axisymmetric inflow at one z, from the axis r = 0 to a wall or between two walls");
       if (box[1] - box[0] > 1e-10 * size && box[3] - box[2] > 1e-10 * size)
         file.fail(key, "role '" + role + "' of " + where + " spans x from " + text(0) + " m and y from " + text(1) +
                          " m: not one straight segment",
@@ -135,6 +139,8 @@ namespace lentus::input
     schema.declare(conditions + "Inflow mass rates", "", ValueKind::real_list(Range::any()),
                    "Instead of Inflow rates: mass flow rate into the domain for each role listed under Inflow, in "
                    "order: [kg/s] axisymmetric, [kg/(s m)] per metre of depth planar; divided by Rheology/Density.");
+    schema.declare(conditions + "Inflow speeds", "", ValueKind::real_list(Range::any()),
+                   "U [m/s] normal speed into the domain for each role listed under Uniform inflow, in order.");
     schema.declare(conditions + "Wall velocity", "0, 0", ValueKind::real_list(Range::any()),
                    "[m/s] velocity of the moving walls, two mesh components (x, y) or (r, z).");
     schema.declare(conditions + "Rotation rate", "0", ValueKind::real(Range::any()),
@@ -284,6 +290,10 @@ namespace lentus::input
     for (const std::string &value : split_list(file.get(rates_key)))
       inflow_rates.push_back(*parse_real(value) * per_rate);
     unsigned int inflow_index = 0;
+    std::vector<double> speeds;
+    for (const std::string &value : split_list(file.get(conditions + "Inflow speeds")))
+      speeds.push_back(*parse_real(value));
+    unsigned int speed_index = 0;
     for (const ConditionKey &condition : condition_keys)
       {
         const std::string key = conditions + condition.key;
@@ -300,12 +310,14 @@ namespace lentus::input
             if (const auto *imported = dynamic_cast<const meshes::GmshMesh *>(flow.geometry.get()))
               if (condition.type == BoundaryCondition::Type::pressure ||
                   condition.type == BoundaryCondition::Type::symmetry ||
-                  condition.type == BoundaryCondition::Type::inflow)
+                  condition.type == BoundaryCondition::Type::inflow ||
+                  condition.type == BoundaryCondition::Type::uniform_inflow)
                 {
                   const std::string problem = imported->not_axis_parallel(role);
                   if (!problem.empty())
                     file.fail(key, problem + " in " + shape_name,
-                              "for Pressure, Symmetry and Inflow: roles whose sides all run along x or all along y");
+                              "for Pressure, Symmetry, Inflow and Uniform inflow: roles whose sides all run along x or "
+                              "all along y");
                   if (condition.type == BoundaryCondition::Type::inflow)
                     inflow_fits(file, key, role, *imported, flow.formulation, shape_name);
                 }
@@ -325,6 +337,13 @@ namespace lentus::input
                             "one flow rate per role, in order");
                 bc.flow_rate = inflow_rates[inflow_index++];
               }
+            if (condition.type == BoundaryCondition::Type::uniform_inflow)
+              {
+                if (speed_index >= speeds.size())
+                  file.fail(conditions + "Inflow speeds", "fewer values than roles under Uniform inflow",
+                            "one speed [m/s] per role, in order");
+                bc.speed = speeds[speed_index++];
+              }
             flow.conditions.push_back(bc);
           }
       }
@@ -333,11 +352,14 @@ namespace lentus::input
                 "one pressure [Pa] per role, in order");
     if (inflow_index != inflow_rates.size())
       file.fail(rates_key, "more values than roles under Inflow", "one flow rate per role, in order");
+    if (speed_index != speeds.size())
+      file.fail(conditions + "Inflow speeds", "more values than roles under Uniform inflow",
+                "one speed [m/s] per role, in order");
     for (const std::string &role : roles)
       if (!assigned.count(role))
         file.fail(conditions + "No-slip", "boundary role '" + role + "' of " + shape_name + " has no condition",
                   "every role (" + role_list + ") listed under exactly one of No-slip, Moving wall, Pressure, "
-                  "Traction-free, Symmetry, Axis, Inflow, Impeller");
+                  "Traction-free, Symmetry, Axis, Inflow, Uniform inflow, Impeller");
     const auto wall_velocity = split_list(file.get(conditions + "Wall velocity"));
     if (wall_velocity.size() != 2)
       file.fail(conditions + "Wall velocity", "needs two components", "two real numbers [m/s]");

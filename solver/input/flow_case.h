@@ -29,12 +29,14 @@ namespace lentus::input
       symmetry,      ///< u . n = 0, zero tangential traction
       axis,          ///< r = 0: u_r = 0, u_theta = 0
       inflow,        ///< fully developed profile of the fluid's own law carrying a set flow rate
+      uniform_inflow, ///< the same normal speed into the domain across the role
       impeller       ///< turns with the impeller at the rotation speed (at rest in the impeller's frame)
     };
     std::string role;
     Type        type;
     double      pressure  = 0.; ///< [Pa], for Type::pressure
     double      flow_rate = 0.; ///< into the domain, [m^3/s] (axisymmetric) or [m^2/s] (planar), for Type::inflow
+    double      speed     = 0.; ///< normal speed into the domain [m/s], for Type::uniform_inflow
   };
 
   struct FlowCase

@@ -12,19 +12,15 @@
 #include <sstream>
 #include <string>
 
+using lentus::testing::wall_stresses;
+
 namespace
 {
   /// Abrupt axisymmetric 4:1 contraction: barrel R = 4, land R = 1, both 10 long [m]; Newtonian,
   /// mu = 1 Pa s, Q = 1 m^3/s. With a mandrel of radius `mandrel` > 0 through the whole die: a tube die.
   std::string contraction(const double mandrel = 0.)
   {
-    return R"(subsection Rheology
-  set Viscosity law = Newtonian
-  subsection Newtonian
-    set Viscosity = 1
-  end
-end
-subsection Geometry
+    return lentus::testing::newtonian(1.) + R"(subsection Geometry
   set Shape = Round die
   subsection Round die
     set Barrel radius    = 4
@@ -46,29 +42,6 @@ subsection Boundary conditions
   set Pressure values = 0
 end
 )";
-  }
-
-  /// Wall shear stress [Pa] from wall_profile.csv at the points of `role` with z in [from, to].
-  std::vector<double> wall_stresses(const std::string &folder, const std::string &role, const double from,
-                                    const double to)
-  {
-    std::vector<double> stresses;
-    std::ifstream       profile("verification_out/" + folder + "/wall_profile.csv");
-    std::string         line;
-    EXPECT_TRUE(std::getline(profile, line)) << "no wall_profile.csv in " << folder;
-    EXPECT_EQ(line, "role,r [m],z [m],wall shear rate [1/s],wall shear stress [Pa]");
-    while (std::getline(profile, line))
-      {
-        std::stringstream fields(line);
-        std::string       name, cell;
-        std::getline(fields, name, ',');
-        std::vector<double> numbers;
-        while (std::getline(fields, cell, ','))
-          numbers.push_back(std::stod(cell));
-        if (name == role && numbers.size() == 4 && numbers[1] >= from && numbers[1] <= to)
-          stresses.push_back(numbers[3]);
-      }
-    return stresses;
   }
 
   /// The rows (r, outflow velocity) of an axisymmetric run's exit_profile.csv; checks the header and
@@ -128,7 +101,7 @@ TEST(RoundDie, AbruptContractionEntranceLoss)
   // Hagen-Poiseuille u(r) = 2 V (1 - r^2/R^2), V = Q / (pi R^2) = 1/pi m/s (analytic); within 1% of 2V.
   // Wall shear stress along the land away from its ends (z from 13 to 19.5 m): Hagen-Poiseuille
   // 4 mu Q / (pi R^3) = 4 / pi Pa (analytic) within 1%.
-  const auto land = wall_stresses("contraction_2", "wall", 13., 19.5);
+  const auto land = wall_stresses("contraction_2", "wall", 1, 13., 19.5);
   EXPECT_GE(land.size(), 4u);
   for (const double stress : land)
     EXPECT_NEAR(stress, 4. / M_PI, 0.01 * 4. / M_PI);
@@ -230,8 +203,8 @@ TEST(TubeDie, NewtonianAnnularLandEnergyAndMeshConvergence)
   const double  peak = 0.25 * G_land * (1. - lambda2 + lambda2 * std::log(lambda2));
   // Along the land away from its ends (z from 15 to 19.5 m: 10 gaps after the entry), the computed
   // wall shear stress on each wall is the developed one (same source) within 1%.
-  const auto mandrel = wall_stresses("tube_die_2", "mandrel", 15., 19.5);
-  const auto outer   = wall_stresses("tube_die_2", "wall", 15., 19.5);
+  const auto mandrel = wall_stresses("tube_die_2", "mandrel", 1, 15., 19.5);
+  const auto outer   = wall_stresses("tube_die_2", "wall", 1, 15., 19.5);
   EXPECT_GE(mandrel.size(), 4u);
   EXPECT_GE(outer.size(), 4u);
   for (const double stress : mandrel)

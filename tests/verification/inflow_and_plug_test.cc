@@ -87,3 +87,63 @@ end
   EXPECT_NEAR(result.number("flow rate out through outlet"), q, 0.005 * q);
   EXPECT_NEAR(result.number("unyielded area fraction"), phi, 1. / 48.);
 }
+
+namespace
+{
+  /// Newtonian (mu = 1 Pa s) channel 0 < x < 10 m, 0 < y < 1 m, inlet at x = 0, outlet at a set pressure.
+  std::string channel(const std::string &conditions)
+  {
+    return lentus::testing::newtonian(1.) + R"(subsection Geometry
+  set Shape = Channel
+  set Refinement = 3
+  subsection Channel
+    set Length = 10
+    set Height = 1
+  end
+end
+subsection Boundary conditions
+)" + conditions + R"(  set Pressure        = outlet
+  set Pressure values = 0
+end
+)";
+  }
+} // namespace
+
+TEST(InflowProfile, HalfSlitBesideASymmetryPlane)
+{
+  // The channel is the upper half of a slit of half-gap h = 1 m (symmetry at y = 0). Plane Poiseuille
+  // (CHECKS.md A1 with n = 1): the full slit carries q = (2/3) G h^3 / mu, the half q/2 = 1/3 m^2/s at
+  // G = 1 Pa/m. The inflow is developed, so the pressure drop over 10 m is 10 Pa within 0.5%.
+  const auto result = lentus::testing::run_case(
+    "inflow_half_slit", channel("  set No-slip = top wall\n  set Symmetry = bottom wall\n  set Inflow = inlet\n"
+                                "  set Inflow rates = 0.3333333333333333\n"));
+  ASSERT_TRUE(result.converged) << result.reason;
+  EXPECT_NEAR(result.number("pressure drop inlet to outlet"), 10., 0.005 * 10.);
+  EXPECT_NEAR(result.number("power input through boundaries"), result.number("viscous dissipation"),
+              0.005 * result.number("viscous dissipation"));
+}
+
+TEST(UniformInflow, PlugEntersAndDevelops)
+{
+  // A plug U = 0.5 m/s enters a slit of gap H = 1 m. The inlet's end nodes belong to the walls (u = 0),
+  // so the plug carries q = U H less a corner piece of the end cells (analytic: less than one cell of
+  // 8 here). Continuity (exact: constants are in the pressure space): the outflow equals the inflow.
+  // Far from the inlet the flow is plane Poiseuille (CHECKS.md A1 with n = 1): wall shear stress
+  // 6 mu q / H^2, within 1% beyond 5 gaps from the inlet.
+  const auto result = lentus::testing::run_case(
+    "uniform_inflow", channel("  set No-slip = bottom wall, top wall\n  set Uniform inflow = inlet\n"
+                              "  set Inflow speeds = 0.5\n"));
+  ASSERT_TRUE(result.converged) << result.reason;
+  const double q = -result.number("flow rate out through inlet");
+  EXPECT_LT(q, 0.5);
+  EXPECT_GT(q, 0.5 * (1. - 1. / 8.));
+  EXPECT_NEAR(result.number("flow rate out through outlet"), q, 1e-8 * q);
+  const auto stresses = lentus::testing::wall_stresses("uniform_inflow", "bottom wall", 0, 5., 9.5);
+  EXPECT_GE(stresses.size(), 10u);
+  for (const double stress : stresses)
+    EXPECT_NEAR(stress, 6. * q, 0.01 * 6. * q);
+  // The plug needs extra pressure to develop: more than the developed 12 mu q L / H^3.
+  EXPECT_GT(result.number("pressure drop inlet to outlet"), 120. * q);
+  EXPECT_NEAR(result.number("power input through boundaries"), result.number("viscous dissipation"),
+              0.005 * result.number("viscous dissipation"));
+}

@@ -7,6 +7,8 @@
 #include "solver/input/flow_case.h"
 
 #include <cmath>
+#include <fstream>
+#include <sstream>
 #include <string>
 #include <vector>
 
@@ -37,10 +39,46 @@ end
 )";
   }
 
+  /// Rheology section of a Newtonian fluid of viscosity mu [Pa s].
+  inline std::string newtonian(const double mu)
+  {
+    return R"(subsection Rheology
+  set Viscosity law = Newtonian
+  subsection Newtonian
+    set Viscosity = )" + std::to_string(mu) + R"(
+  end
+end
+)";
+  }
+
   /// |a - b| / |b|.
   inline double relative_difference(const double a, const double b)
   {
     return std::abs(a - b) / std::abs(b);
+  }
+
+  /// Wall shear stress [Pa] from a run's wall_profile.csv at the points of `role` whose coordinate
+  /// `axial` (0: x or r, 1: y or z) lies in [from, to].
+  inline std::vector<double> wall_stresses(const std::string &folder, const std::string &role, const int axial,
+                                           const double from, const double to)
+  {
+    std::vector<double> stresses;
+    std::ifstream       profile("verification_out/" + folder + "/wall_profile.csv");
+    std::string         line;
+    if (!std::getline(profile, line) || line.rfind("role,", 0) != 0)
+      return stresses;
+    while (std::getline(profile, line))
+      {
+        std::stringstream fields(line);
+        std::string       name, cell;
+        std::getline(fields, name, ',');
+        std::vector<double> numbers;
+        while (std::getline(fields, cell, ','))
+          numbers.push_back(std::stod(cell));
+        if (name == role && numbers.size() == 4 && numbers[axial] >= from && numbers[axial] <= to)
+          stresses.push_back(numbers[3]);
+      }
+    return stresses;
   }
 
   inline flow::RunResult run_case(const std::string &name,

@@ -207,7 +207,7 @@ TEST(GmshMeshFile, InflowOnOneSegment)
                                         "  set Inflow rates = 1e-6\n")),
               HasSubstr("case.prm:21: Boundary conditions/Inflow = outlet: role 'outlet' of Gmsh mesh "
                         "gmsh_unit_test.msh spans x (r) from 0.02 to 0.02 m and y (z) from 0 to 0.01 m; allowed: an "
-                        "axisymmetric inflow at one z, from the axis r = 0 to the wall"));
+                        "axisymmetric inflow at one z, from the axis r = 0 to a wall or between two walls"));
   // Planar: the same role is one straight segment from wall to wall.
   EXPECT_EQ(message_of(case_with_mesh(two_squares, "planar",
                                       "  set No-slip = wall, inlet\n  set Inflow = outlet\n"
