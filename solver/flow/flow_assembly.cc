@@ -78,6 +78,13 @@ namespace lentus::flow
     std::vector<Kinematics> shape(dofs_per_cell);
     std::vector<double>     shape_divergence(dofs_per_cell), shape_pressure(dofs_per_cell);
     std::vector<Tensor<2, 3>> shape_strain(dofs_per_cell);
+    std::vector<unsigned int> pressure_dofs; // cell-local indices of the pressure unknowns
+    for (unsigned int i = 0; i < dofs_per_cell; ++i)
+      if (fe.system_to_component_index(i).first == n_velocity)
+        pressure_dofs.push_back(i);
+    const auto                           n_pressure = static_cast<unsigned int>(pressure_dofs.size());
+    FullMatrix<double>                   pressure_mass(n_pressure, n_pressure);
+    std::vector<types::global_dof_index> pressure_indices(n_pressure);
 
     std::map<types::boundary_id, double> set_pressure;
     for (const input::BoundaryCondition &bc : state.flow.conditions)
@@ -219,7 +226,14 @@ namespace lentus::flow
           {
             state.zero_constraints.distribute_local_to_global(cell_matrix, cell_residual, dof_indices,
                                                               state.system_matrix, state.residual);
-            state.zero_constraints.distribute_local_to_global(cell_mass, dof_indices, state.pressure_mass);
+            // Only the pressure block of cell_mass is non-zero; the matrix has the pressure pattern.
+            for (unsigned int i = 0; i < n_pressure; ++i)
+              {
+                pressure_indices[i] = dof_indices[pressure_dofs[i]];
+                for (unsigned int j = 0; j < n_pressure; ++j)
+                  pressure_mass(i, j) = cell_mass(pressure_dofs[i], pressure_dofs[j]);
+              }
+            state.zero_constraints.distribute_local_to_global(pressure_mass, pressure_indices, state.pressure_mass);
           }
         else
           state.zero_constraints.distribute_local_to_global(cell_residual, dof_indices, state.residual);

@@ -355,7 +355,15 @@ namespace lentus::flow
     DoFTools::make_sparsity_pattern(state.dof_handler, pattern, state.zero_constraints, false);
     SparsityTools::distribute_sparsity_pattern(pattern, state.owned, state.comm, state.relevant);
     state.system_matrix.reinit(state.owned, state.owned, pattern, state.comm);
-    state.pressure_mass.reinit(state.owned, state.owned, pattern, state.comm);
+    // The Schur-complement preconditioner's pressure mass matrix couples pressures only: its own,
+    // much smaller pattern (on the full pattern it would double the matrix memory).
+    Table<2, DoFTools::Coupling> pressure_only(state.n_velocity + 1, state.n_velocity + 1);
+    pressure_only.fill(DoFTools::none);
+    pressure_only(state.n_velocity, state.n_velocity) = DoFTools::always;
+    DynamicSparsityPattern pressure_pattern(state.relevant);
+    DoFTools::make_sparsity_pattern(state.dof_handler, pressure_only, pressure_pattern, state.zero_constraints, false);
+    SparsityTools::distribute_sparsity_pattern(pressure_pattern, state.owned, state.comm, state.relevant);
+    state.pressure_mass.reinit(state.owned, state.owned, pressure_pattern, state.comm);
     state.residual.reinit(state.owned, state.comm);
     state.solution.reinit(state.owned, state.relevant, state.comm);
   }
