@@ -275,7 +275,7 @@ namespace lentus::flow
                     front.push_back(j);
                   }
           }
-        cavern[1] = cavern[3] > 0. ? top - bottom : 0.;
+        cavern[1] = cavern[3] > 0. && top >= bottom ? top - bottom : 0.; // no yielded sample: no extent
       }
     MPI_Bcast(cavern, 4, MPI_DOUBLE, 0, state.comm);
     // The cavern's extent: the interpolated yield surface (see the margin averaging above).
