@@ -111,8 +111,7 @@ namespace lentus::flow
                     {
                       const Point<2>    &x = face_values.quadrature_point(q);
                       const Kinematics   u = kinematics(state.kind, x, &values[q][0], gradients[q].data());
-                      const Tensor<2, 3> D = strain_rate(u.L);
-                      const double       rate = std::sqrt(2. * contract(D, D));
+                      const double       rate = shear_rate(u.L);
                       rows.push_back({{static_cast<double>(w), x[axial], x[0], x[1], rate,
                                        state.law->evaluate(rate).value * rate}});
                     }

@@ -46,8 +46,7 @@ namespace lentus::flow
             // On the axis r = 0 the hoop terms are limits; evaluate just off it.
             const Point<2>     at(is_axisymmetric(state.kind) ? std::max(x[0], 1e-12) : x[0], x[1]);
             const Kinematics   u         = kinematics(state.kind, at, values, gradients);
-            const Tensor<2, 3> D         = strain_rate(u.L);
-            const double       gamma_dot = std::sqrt(2. * contract(D, D));
+            const double       gamma_dot = shear_rate(u.L);
             const double       eta       = state.law->evaluate(gamma_dot).value;
             computed[q](0)               = gamma_dot;
             computed[q](1)               = eta;
@@ -143,8 +142,7 @@ namespace lentus::flow
               const Point<2>    &x = fe_values.quadrature_point(q);
               const double       w = volume_weight(state.kind, x) * fe_values.JxW(q);
               const Kinematics   u = kinematics(state.kind, x, &values[q][0], gradients[q].data());
-              const Tensor<2, 3> D = strain_rate(u.L);
-              const double       gamma_dot = std::sqrt(2. * contract(D, D));
+              const double       gamma_dot = shear_rate(u.L);
               const double       eta       = state.law->evaluate(gamma_dot).value;
               sums[0] += fe_values.JxW(q);
               sums[1] += w;

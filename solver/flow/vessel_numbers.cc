@@ -140,8 +140,7 @@ namespace lentus::flow
               const Point<2>    &x = fe_values.quadrature_point(q);
               const double       w = volume_weight(state.kind, x) * fe_values.JxW(q);
               const Kinematics   u = kinematics(state.kind, x, &values[q][0], gradients[q].data());
-              const Tensor<2, 3> D_ = strain_rate(u.L);
-              const double       gamma_dot  = std::sqrt(2. * contract(D_, D_));
+              const double       gamma_dot = shear_rate(u.L);
               const bool         unyielded  = tau_y > 0. && state.law->evaluate(gamma_dot).value * gamma_dot < tau_y;
               const double       speed      = fixed_frame_velocity(state, x, u.U).norm();
               const bool         dead       = unyielded || speed < flow.dead_zone_fraction * tip_speed;
@@ -167,8 +166,7 @@ namespace lentus::flow
                 {
                   const Point<2>    &x = sample_values.quadrature_point(k);
                   const Kinematics   u = kinematics(state.kind, x, &grid_values[k][0], grid_gradients[k].data());
-                  const Tensor<2, 3> D_ = strain_rate(u.L);
-                  const double       gamma_dot = std::sqrt(2. * contract(D_, D_));
+                  const double       gamma_dot = shear_rate(u.L);
                   record[sample_grid + 3 * k]     = x[0];
                   record[sample_grid + 3 * k + 1] = x[1];
                   record[sample_grid + 3 * k + 2] = state.law->evaluate(gamma_dot).value * gamma_dot - tau_y;

@@ -16,6 +16,7 @@
 #include <deal.II/base/point.h>
 #include <deal.II/base/tensor.h>
 
+#include <cmath>
 #include <string>
 
 namespace lentus
@@ -92,5 +93,12 @@ namespace lentus
   inline double contract(const dealii::Tensor<2, 3> &A, const dealii::Tensor<2, 3> &B)
   {
     return dealii::scalar_product(A, B);
+  }
+
+  /// Shear rate gamma_dot = sqrt(2 D:D) of the velocity gradient L.
+  inline double shear_rate(const dealii::Tensor<2, 3> &L)
+  {
+    const dealii::Tensor<2, 3> D = strain_rate(L);
+    return std::sqrt(2. * contract(D, D));
   }
 } // namespace lentus
