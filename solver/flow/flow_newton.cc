@@ -43,8 +43,11 @@ namespace lentus::flow
     /// One Newton/Picard solve from state.solution; true if converged. With `give_up_when_stalled`,
     /// it stops once Newton crawls (the residual fell by less than 10% over the last `stall_limit`
     /// Newton steps), so that continuation can take over early.
+    /// `reference_residual` > 0 replaces the first residual as the measure of the relative tolerance
+    /// (a start interpolated from a coarser mesh is already closer than the state at rest).
     bool iterate(FlowState &state, const bool direct, SolveReport &report, std::string &why,
-                 const bool give_up_when_stalled = false, const unsigned int max_picard_steps = ~0u)
+                 const bool give_up_when_stalled = false, const unsigned int max_picard_steps = ~0u,
+                 const double reference_residual = 0.)
     {
       const unsigned int  stall_limit = 4;
       std::vector<double> newton_residuals; // of the current run of Newton steps, the one before them first
@@ -57,7 +60,8 @@ namespace lentus::flow
       double       residual   = first;
       unsigned int picard     = 0;
       double       previous   = residual;
-      const double target     = std::max(flow.relative_tolerance * first, flow.absolute_tolerance);
+      const double reference  = reference_residual > 0. ? reference_residual : first;
+      const double target     = std::max(flow.relative_tolerance * reference, flow.absolute_tolerance);
       state.log.line(format("  initial residual %.3e", first));
       if (!std::isfinite(first))
         {
@@ -132,7 +136,8 @@ namespace lentus::flow
           previous       = residual;
           residual       = trial_residual;
           const char *name = linearization == Linearization::picard ? "Picard" : "Newton";
-          report.iterations.push_back({iteration, name, residual, step, linear_iterations, timer.wall_time()});
+          report.iterations.push_back(
+            {iteration, name, residual, step, linear_iterations, timer.wall_time(), state.dof_handler.n_dofs()});
           state.log.line(format("  %3.0f ", iteration) + name +
                          format("  residual %.3e  step %.3g", residual, step) +
                          format("  linear iterations %.0f  %.2f s", linear_iterations, timer.wall_time()));
@@ -158,16 +163,27 @@ namespace lentus::flow
             format("%.3e", residual) + ", target " + format("%.3e", target) + ")";
       return false;
     }
+
+    /// The linear solver of Linear solver/Type on the current mesh ("automatic": by size).
+    bool use_direct(const FlowState &state, SolveReport &report)
+    {
+      const input::FlowCase &flow   = state.flow;
+      const bool             direct = flow.linear_solver == "direct" ||
+                          (flow.linear_solver == "automatic" && state.dof_handler.n_dofs() <= flow.direct_limit);
+      report.linear_solver = direct ? "direct (MUMPS)" : "FGMRES, block-triangular preconditioner";
+      return direct;
+    }
   } // namespace
 
-  SolveReport solve_nonlinear(FlowState &state)
+  void solve_nonlinear(FlowState &state, SolveReport &report)
   {
     const input::FlowCase &flow = state.flow;
-    SolveReport            report;
+    report.converged            = false;
+    report.reason.clear();
     const auto             n_dofs = state.dof_handler.n_dofs();
-    const bool             direct = flow.linear_solver == "direct" ||
-                        (flow.linear_solver == "automatic" && n_dofs <= flow.direct_limit);
-    report.linear_solver = direct ? "direct (MUMPS)" : "FGMRES, block-triangular preconditioner";
+    if (report.meshes.empty() || report.meshes.back() != n_dofs)
+      report.meshes.push_back(n_dofs);
+    const bool             direct = use_direct(state, report);
     state.log.line("Nonlinear solve: " + std::to_string(n_dofs) + " unknowns, linear solver " + report.linear_solver);
 
     initial_solution(state);
@@ -178,7 +194,7 @@ namespace lentus::flow
     if (iterate(state, direct, report, why))
       {
         report.converged = true;
-        return report;
+        return;
       }
     state.log.line("  direct attempt failed: " + why);
 
@@ -212,7 +228,7 @@ namespace lentus::flow
     if (!flow.continuation || key.empty())
       {
         report.reason = why;
-        return report;
+        return;
       }
     state.log.line("Continuation in " + key + ":");
     initial_solution(state);
@@ -241,12 +257,91 @@ namespace lentus::flow
             state.law     = fluid.law;
             state.density = full_density;
             report.reason = "continuation in " + key + " failed at " + rheology::format_short(value) + ": " + why;
-            return report;
+            return;
           }
       }
     state.density    = full_density;
     state.law        = fluid.law;
     report.converged = true;
+  }
+
+  namespace
+  {
+    void log_mesh(FlowState &state, const std::string &stage)
+    {
+      const input::FlowCase &flow = state.flow;
+      state.log.line(stage + (stage.empty() ? "Mesh: " : "mesh: ") +
+                     std::to_string(state.triangulation.n_global_active_cells()) + " cells, " +
+                     std::to_string(state.dof_handler.n_dofs()) + " unknowns (Taylor-Hood Q" +
+                     std::to_string(flow.velocity_degree) + "-Q" + std::to_string(flow.velocity_degree - 1) + ")");
+    }
+
+    /// From the solution interpolated from the coarser mesh; true if converged. The Picard steps
+    /// come first here too: Newton started at once from the interpolated solution crawls (Bingham
+    /// cavity, Bn = 20, M = 1000: its steps are cut to 1/8 - 1/64 by the line search and it
+    /// stalls), as the yield surfaces move when the mesh is refined.
+    bool solve_from_interpolated(FlowState &state, SolveReport &report)
+    {
+      report.meshes.push_back(state.dof_handler.n_dofs());
+      const bool direct = use_direct(state, report);
+      state.log.line("Nonlinear solve from the coarser mesh's solution, linear solver " + report.linear_solver);
+      // The tolerance stays relative to the residual of the state at rest, as on a cold start.
+      const Vector start = state.solution;
+      initial_solution(state);
+      const double at_rest = assemble(state, state.solution, Linearization::none);
+      state.solution       = start;
+      std::string why;
+      if (iterate(state, direct, report, why, false, ~0u, at_rest))
+        return true;
+      report.reason = why;
+      return false;
+    }
+  } // namespace
+
+  SolveReport solve_with_mesh_sequencing(FlowState &state)
+  {
+    const input::FlowCase &flow = state.flow;
+    // Automatic: two coarser meshes when the mesh is large (about 4x fewer unknowns per level).
+    const unsigned int automatic_levels = std::min(2u, flow.refinement);
+    unsigned int       levels = flow.mesh_sequencing >= 0 ? static_cast<unsigned int>(flow.mesh_sequencing) :
+                                                            automatic_levels;
+    create_mesh(state, flow.refinement - levels);
+    setup_dofs(state);
+    if (flow.mesh_sequencing < 0 && levels > 0 &&
+        static_cast<double>(state.dof_handler.n_dofs()) * std::pow(4., levels) <= 1e5)
+      {
+        state.triangulation.refine_global(levels);
+        setup_dofs(state);
+        levels = 0;
+      }
+    SolveReport report;
+    log_mesh(state, levels > 0 ? "Mesh sequencing over " + std::to_string(levels + 1) + " meshes; first " : "");
+    const auto attempt = [&](const auto &solve) {
+      try
+        {
+          solve();
+        }
+      catch (const NoConvergence &error)
+        {
+          report.converged = false;
+          report.reason    = error.what();
+        }
+    };
+    attempt([&] { solve_nonlinear(state, report); });
+    for (unsigned int remaining = levels; remaining > 0; --remaining)
+      {
+        const bool follow = report.converged;
+        refine_and_transfer(state);
+        log_mesh(state, remaining > 1 ? "Finer " : "Final ");
+        if (follow)
+          attempt([&] { report.converged = solve_from_interpolated(state, report); });
+        if (!report.converged && remaining == 1)
+          {
+            // Sequencing failed: solve the final mesh from rest, as without mesh sequencing.
+            state.log.line("  mesh sequencing did not converge (" + report.reason + "); solving from rest");
+            attempt([&] { solve_nonlinear(state, report); });
+          }
+      }
     return report;
   }
 } // namespace lentus::flow

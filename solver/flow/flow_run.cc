@@ -12,7 +12,9 @@
 #include <deal.II/base/mpi.h>
 #include <deal.II/base/timer.h>
 
+#include <cstdint>
 #include <cstdio>
+#include <vector>
 #include <stdexcept>
 #include <filesystem>
 #include <fstream>
@@ -84,22 +86,24 @@ namespace lentus::flow
     state.log.line("Fluid: " + flow.fluid.law_name + "; formulation: " + to_string(flow.formulation) +
                    (flow.inertia ? ", with inertia" : ", creeping flow"));
 
-    setup_mesh_and_dofs(state);
-    state.log.line("Mesh: " + std::to_string(state.triangulation.n_global_active_cells()) + " cells, " +
-                   std::to_string(state.dof_handler.n_dofs()) + " unknowns (Taylor-Hood Q" +
-                   std::to_string(flow.velocity_degree) + "-Q" + std::to_string(flow.velocity_degree - 1) + ")");
-
-    SolveReport report;
-    try
-      {
-        report = solve_nonlinear(state);
-      }
-    catch (const NoConvergence &error)
-      {
-        report.converged = false;
-        report.reason    = error.what();
-      }
+    const SolveReport report = solve_with_mesh_sequencing(state);
     const std::vector<DesignNumber> numbers = design_numbers(state);
+    // Iteration figures of each mesh solved on (several under mesh sequencing); summary.json's
+    // totals are those of the final mesh.
+    std::vector<MeshSteps> meshes;
+    for (const std::uint64_t unknowns : report.meshes)
+      meshes.push_back({unknowns});
+    if (meshes.empty() || meshes.back().unknowns != state.dof_handler.n_dofs())
+      meshes.push_back({state.dof_handler.n_dofs()});
+    for (const IterationRecord &record : report.iterations)
+      for (MeshSteps &mesh : meshes)
+        if (mesh.unknowns == record.unknowns)
+          {
+            (record.kind == "Newton" ? mesh.newton : mesh.picard) += 1;
+            mesh.linear += record.linear_iterations;
+            mesh.seconds += record.seconds;
+            break;
+          }
     const double                    seconds = timer.wall_time();
     // Peak resident memory (VmHWM) of each rank [MiB].
     double peak_memory = 0.;
@@ -139,14 +143,9 @@ namespace lentus::flow
 
     if (state.rank == 0)
       {
-        unsigned int newton = 0, picard = 0;
-        double       iteration_seconds = 0.;
-        for (const IterationRecord &record : report.iterations)
-          {
-            (record.kind == "Newton" ? newton : picard) += 1;
-            iteration_seconds += record.seconds;
-          }
-        const double steps = std::max<double>(1., static_cast<double>(report.iterations.size()));
+        const MeshSteps   &final_mesh = meshes.back();
+        const unsigned int newton = final_mesh.newton, picard = final_mesh.picard;
+        const double       steps  = std::max(1., static_cast<double>(newton + picard));
         std::ostringstream json;
         json << "{\n  \"case\": " << json_string(flow.case_file) << ",\n  \"lentus version\": " << json_string(version)
              << ",\n  \"converged\": " << (report.converged ? "true" : "false")
@@ -160,16 +159,23 @@ namespace lentus::flow
         json << "\n  },\n  \"numerics\": {\n    \"unknowns\": " << state.dof_handler.n_dofs()
              << ",\n    \"cells\": " << state.triangulation.n_global_active_cells()
              << ",\n    \"Newton iterations\": " << newton << ",\n    \"Picard iterations\": " << picard
-             << ",\n    \"linear iterations\": " << report.linear_iterations
+             << ",\n    \"linear iterations\": " << final_mesh.linear
              << ",\n    \"linear solver\": " << json_string(report.linear_solver)
              << ",\n    \"continuation steps\": " << report.continuation_steps.size()
              << ",\n    \"final residual\": "
              << json_number(report.iterations.empty() ? 0. : report.iterations.back().residual)
-             << ",\n    \"linear iterations per step\": " << json_number(report.linear_iterations / steps)
-             << ",\n    \"seconds per step\": " << json_number(iteration_seconds / steps)
+             << ",\n    \"linear iterations per step\": " << json_number(final_mesh.linear / steps)
+             << ",\n    \"seconds per step\": " << json_number(final_mesh.seconds / steps)
              << ",\n    \"peak memory per rank [MiB]\": " << json_number(peak_memory_max)
              << ",\n    \"peak memory all ranks [MiB]\": " << json_number(peak_memory_sum)
              << ",\n    \"wall time [s]\": " << json_number(seconds) << ",\n    \"ranks\": " << state.n_ranks
+             << ",\n    \"meshes\": [";
+        for (std::size_t i = 0; i < meshes.size(); ++i)
+          json << (i ? "," : "") << "\n      {\"unknowns\": " << meshes[i].unknowns << ", \"Newton iterations\": "
+               << meshes[i].newton << ", \"Picard iterations\": " << meshes[i].picard
+               << ", \"linear iterations\": " << meshes[i].linear
+               << ", \"seconds\": " << json_number(meshes[i].seconds) << "}";
+        json << (meshes.empty() ? "]" : "\n    ]")
              << "\n  },\n  \"caution\": " << json_string(caution) << "\n}\n";
         report::write_file_atomically((partial / "summary.json").string(), json.str());
         report::write_file_atomically((partial / "case.prm").string(), flow.complete_text);
@@ -191,8 +197,8 @@ namespace lentus::flow
                                           report.reason + " (last iterate written to " + folder.string() +
                                           ", marked not converged)";
     result.numbers   = numbers;
-    for (const IterationRecord &record : report.iterations)
-      result.newton_iterations += record.kind == "Newton";
+    result.newton_iterations = meshes.back().newton;
+    result.meshes            = meshes;
     return result;
   }
 } // namespace lentus::flow

@@ -8,6 +8,7 @@
 
 #include <mpi.h>
 
+#include <cstdint>
 #include <functional>
 #include <memory>
 
@@ -23,12 +24,21 @@ namespace lentus::flow
     std::string unit;
   };
 
+  /// The nonlinear iterations on one mesh of the solve (several under mesh sequencing).
+  struct MeshSteps
+  {
+    std::uint64_t unknowns = 0;
+    unsigned int  newton = 0, picard = 0, linear = 0; ///< iterations
+    double        seconds = 0.;                       ///< in the nonlinear iterations
+  };
+
   struct RunResult
   {
     bool                      converged = false;
     std::string               reason;  ///< why not converged
     std::vector<DesignNumber> numbers; ///< of the last iterate
-    unsigned int              newton_iterations = 0;
+    unsigned int              newton_iterations = 0; ///< on the final mesh
+    std::vector<MeshSteps>    meshes;                ///< coarsest first; the last is the final mesh
 
     /// The value of the design number `name`; throws std::out_of_range if absent.
     double number(const std::string &name) const;

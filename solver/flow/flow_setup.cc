@@ -5,6 +5,7 @@
 
 #include <deal.II/base/function.h>
 #include <deal.II/base/utilities.h>
+#include <deal.II/distributed/solution_transfer.h>
 #include <deal.II/dofs/dof_renumbering.h>
 #include <deal.II/dofs/dof_tools.h>
 #include <deal.II/fe/fe_q.h>
@@ -248,8 +249,72 @@ namespace lentus::flow
 
   void setup_mesh_and_dofs(FlowState &state)
   {
+    create_mesh(state, state.flow.refinement);
+    setup_dofs(state);
+  }
+
+  void create_mesh(FlowState &state, const unsigned int level)
+  {
+    state.dof_handler.clear();
+    state.triangulation.clear();
+    state.flow.geometry->create_mesh(state.triangulation, level);
+  }
+
+  namespace
+  {
+    /// The pressure unknown pinned to zero when no boundary fixes the pressure level (the smallest
+    /// pressure index), or invalid_dof_index.
+    types::global_dof_index pinned_pressure(const FlowState &state)
+    {
+      if (!state.pressure_pinned)
+        return numbers::invalid_dof_index;
+      const FEValuesExtractors::Scalar pressure(state.n_velocity);
+      const IndexSet pressure_dofs = DoFTools::extract_dofs(state.dof_handler, state.fe.component_mask(pressure));
+      const types::global_dof_index first =
+        pressure_dofs.n_elements() ? *pressure_dofs.begin() : numbers::invalid_dof_index;
+      return Utilities::MPI::min(first, state.comm);
+    }
+  } // namespace
+
+  void refine_and_transfer(FlowState &state)
+  {
+    parallel::distributed::SolutionTransfer<2, Vector> transfer(state.dof_handler);
+    for (const auto &cell : state.triangulation.active_cell_iterators())
+      if (cell->is_locally_owned())
+        cell->set_refine_flag();
+    state.triangulation.prepare_coarsening_and_refinement();
+    transfer.prepare_for_coarsening_and_refinement(state.solution);
+    state.triangulation.execute_coarsening_and_refinement();
+    setup_dofs(state);
+    Vector interpolated(state.owned, state.comm);
+    transfer.interpolate(interpolated);
+    // Without a pressure boundary the pressure is known up to a constant, pinned at one unknown
+    // whose index differs on the new mesh: shift the interpolated pressure to vanish there.
+    const types::global_dof_index pinned = pinned_pressure(state);
+    if (pinned != numbers::invalid_dof_index)
+      {
+        const double shift = Utilities::MPI::sum(state.owned.is_element(pinned) ? double(interpolated[pinned]) : 0.,
+                                                 state.comm);
+        const FEValuesExtractors::Scalar pressure(state.n_velocity);
+        const IndexSet owned_pressures =
+          DoFTools::extract_dofs(state.dof_handler, state.fe.component_mask(pressure)) & state.owned;
+        std::vector<Vector::size_type> indices;
+        std::vector<double>            values;
+        for (const auto index : owned_pressures)
+          {
+            indices.push_back(index);
+            values.push_back(interpolated[index] - shift);
+          }
+        interpolated.set(indices, values);
+        interpolated.compress(VectorOperation::insert);
+      }
+    state.nonzero_constraints.distribute(interpolated);
+    state.solution = interpolated;
+  }
+
+  void setup_dofs(FlowState &state)
+  {
     const input::FlowCase &flow = state.flow;
-    flow.geometry->create_mesh(state.triangulation, flow.refinement);
     state.dof_handler.distribute_dofs(state.fe);
     renumber_node_wise(state);
     state.owned    = state.dof_handler.locally_owned_dofs();
@@ -339,11 +404,7 @@ namespace lentus::flow
     state.pressure_pinned = !pressure_boundary;
     if (state.pressure_pinned)
       {
-        const FEValuesExtractors::Scalar pressure(state.n_velocity);
-        const IndexSet pressure_dofs =
-          DoFTools::extract_dofs(state.dof_handler, state.fe.component_mask(pressure));
-        types::global_dof_index first = pressure_dofs.n_elements() ? *pressure_dofs.begin() : numbers::invalid_dof_index;
-        first = Utilities::MPI::min(first, state.comm);
+        const types::global_dof_index first = pinned_pressure(state);
         for (AffineConstraints<double> *constraints : {&state.nonzero_constraints, &state.zero_constraints})
           if (state.relevant.is_element(first) && !constraints->is_constrained(first))
             constraints->add_line(first);

@@ -14,6 +14,7 @@
 #include <deal.II/lac/petsc_sparse_matrix.h>
 #include <deal.II/lac/petsc_vector.h>
 
+#include <cstdint>
 #include <memory>
 #include <sstream>
 #include <string>
@@ -33,6 +34,7 @@ namespace lentus::flow
     double       step;     ///< line-search step length
     unsigned int linear_iterations;
     double       seconds;
+    std::uint64_t unknowns; ///< of the mesh the step was taken on (mesh sequencing)
   };
 
   struct SolveReport
@@ -43,6 +45,7 @@ namespace lentus::flow
     unsigned int                 linear_iterations = 0;
     std::string                  linear_solver;
     std::vector<std::string>     continuation_steps;
+    std::vector<std::uint64_t>   meshes; ///< unknowns of each mesh solved on, coarsest first
   };
 
   /// Messages go to standard output (rank 0) and into the case's log.
@@ -82,7 +85,15 @@ namespace lentus::flow
   };
 
   // flow_setup.cc
+  /// The geometry's mesh at Geometry/Refinement, then setup_dofs().
   void setup_mesh_and_dofs(FlowState &state);
+  /// The geometry's mesh `level` refinements above its coarse mesh (no unknowns yet).
+  void create_mesh(FlowState &state, unsigned int level);
+  /// Unknowns, constraints, sparsity patterns, matrices and vectors on the current mesh.
+  void setup_dofs(FlowState &state);
+  /// Refines every cell once and carries state.solution over to the finer mesh (interpolation;
+  /// Dirichlet values and the pinned pressure are set anew), with setup_dofs().
+  void refine_and_transfer(FlowState &state);
   /// Velocity node by node, then pressure, within each rank's range (called by setup_mesh_and_dofs).
   void renumber_node_wise(FlowState &state);
   /// The initial iterate: zero with the Dirichlet values.
@@ -112,6 +123,10 @@ namespace lentus::flow
   unsigned int solve_linear(FlowState &state, Vector &update, bool direct, double relative_tolerance = 1e-10);
 
   // flow_newton.cc
-  /// Newton with line search, Picard start and continuation. Leaves the last iterate in state.solution.
-  SolveReport solve_nonlinear(FlowState &state);
+  /// Newton with line search, Picard start and continuation on the current mesh, from rest.
+  /// Appends to `report`; leaves the last iterate in state.solution.
+  void solve_nonlinear(FlowState &state, SolveReport &report);
+  /// The whole solve: creates the mesh (and its coarser ones under mesh sequencing), solves on
+  /// each, and leaves the state on the mesh of Geometry/Refinement.
+  SolveReport solve_with_mesh_sequencing(FlowState &state);
 } // namespace lentus::flow

@@ -70,6 +70,7 @@ namespace lentus::input
     double       picard_until       = 1e-2; ///< Picard while residual / initial residual is above this
     unsigned int max_picard_steps   = 10;
     bool         continuation       = true;
+    int          mesh_sequencing    = -1; ///< levels solved first on coarser meshes; -1: automatic
     // Linear solver
     std::string  linear_solver = "automatic"; ///< automatic | direct | iterative
     unsigned int direct_limit  = 250000;      ///< DoFs up to which "automatic" chooses direct
