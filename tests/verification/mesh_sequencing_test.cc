@@ -86,7 +86,7 @@ TEST(MeshSequencing, BinghamCavitySameAnswerAsFromRest)
   std::ifstream     input(std::string(LENTUS_SOURCE_DIR) + "/tests/verification/cases/bingham_cavity.prm");
   std::stringstream text;
   text << input.rdbuf();
-  // automatic: 2.5e3 unknowns, far below the size at which sequencing starts: one mesh.
+  // automatic: 2.5e3 unknowns, below the 3e4 at which sequencing starts: one mesh.
   const auto from_rest = lentus::testing::run_case("sequencing_cavity_rest", text.str());
   const auto sequenced =
     lentus::testing::run_case("sequencing_cavity", text.str(), {"Nonlinear solver/Mesh sequencing=2"});
