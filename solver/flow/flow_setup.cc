@@ -247,12 +247,6 @@ namespace lentus::flow
     state.dof_handler.renumber_dofs(new_numbers);
   }
 
-  void setup_mesh_and_dofs(FlowState &state)
-  {
-    create_mesh(state, state.flow.refinement);
-    setup_dofs(state);
-  }
-
   void create_mesh(FlowState &state, const unsigned int level)
   {
     state.dof_handler.clear();

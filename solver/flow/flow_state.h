@@ -85,8 +85,6 @@ namespace lentus::flow
   };
 
   // flow_setup.cc
-  /// The geometry's mesh at Geometry/Refinement, then setup_dofs().
-  void setup_mesh_and_dofs(FlowState &state);
   /// The geometry's mesh `level` refinements above its coarse mesh (no unknowns yet).
   void create_mesh(FlowState &state, unsigned int level);
   /// Unknowns, constraints, sparsity patterns, matrices and vectors on the current mesh.
@@ -94,7 +92,7 @@ namespace lentus::flow
   /// Refines every cell once and carries state.solution over to the finer mesh (interpolation;
   /// Dirichlet values and the pinned pressure are set anew), with setup_dofs().
   void refine_and_transfer(FlowState &state);
-  /// Velocity node by node, then pressure, within each rank's range (called by setup_mesh_and_dofs).
+  /// Velocity node by node, then pressure, within each rank's range (called by setup_dofs).
   void renumber_node_wise(FlowState &state);
   /// The initial iterate: zero with the Dirichlet values.
   void initial_solution(FlowState &state);
