@@ -309,14 +309,14 @@ namespace lentus::flow
     unsigned int       levels = flow.mesh_sequencing >= 0 ? static_cast<unsigned int>(flow.mesh_sequencing) :
                                                             automatic_levels;
     create_mesh(state, flow.refinement - levels);
-    setup_dofs(state);
+    state.dof_handler.distribute_dofs(state.fe); // to count the unknowns
     if (flow.mesh_sequencing < 0 && levels > 0 &&
         static_cast<double>(state.dof_handler.n_dofs()) * std::pow(4., levels) <= automatic_from)
       {
         state.triangulation.refine_global(levels);
-        setup_dofs(state);
         levels = 0;
       }
+    setup_dofs(state);
     SolveReport report;
     log_mesh(state, levels > 0 ? "Mesh sequencing over " + std::to_string(levels + 1) + " meshes; first " : "");
     const auto attempt = [&](const auto &solve) {

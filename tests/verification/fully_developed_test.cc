@@ -16,21 +16,7 @@ namespace
   std::string channel_case(const std::string &rheology, const int refinement)
   {
     // Full gap H = 1 (h = 0.5), length 2, pressure drop 2 Pa: G = 1 Pa/m, tau_w = G h = 0.5 Pa.
-    return rheology + R"(
-subsection Geometry
-  set Shape = Channel
-  set Refinement = )" + std::to_string(refinement) + R"(
-  subsection Channel
-    set Length = 2
-    set Height = 1
-  end
-end
-subsection Boundary conditions
-  set No-slip = bottom wall, top wall
-  set Pressure = inlet, outlet
-  set Pressure values = 2, 0
-end
-)";
+    return lentus::testing::pressure_driven_channel(rheology, refinement, 2., 2.);
   }
 
   std::string pipe_case(const std::string &rheology, const int refinement, const double pressure_drop = 2.)

@@ -58,7 +58,7 @@ TEST(BinghamSlit, PlugWidthAndFlowRate)
   // The developed stress is exactly tau = G |y| whatever the law, so the unyielded (|tau| < tau_y)
   // fraction of the channel is phi = 0.5 up to the quadrature-point spacing (1/48 of the gap here);
   // the flow rate carries the regularization error O(1/M) (M = 1e4 s): within 0.5%.
-  const std::string text = R"(subsection Rheology
+  const std::string text = lentus::testing::pressure_driven_channel(R"(subsection Rheology
   set Viscosity law = Bingham
   subsection Bingham
     set Plastic viscosity = 1
@@ -66,20 +66,7 @@ TEST(BinghamSlit, PlugWidthAndFlowRate)
     set Regularization exponent = 1e4
   end
 end
-subsection Geometry
-  set Shape = Channel
-  set Refinement = 4
-  subsection Channel
-    set Length = 1
-    set Height = 1
-  end
-end
-subsection Boundary conditions
-  set No-slip = bottom wall, top wall
-  set Pressure = inlet, outlet
-  set Pressure values = 1, 0
-end
-)";
+)", 4, 1., 1.);
   const auto result = lentus::testing::run_case("bingham_slit", text);
   ASSERT_TRUE(result.converged) << result.reason;
   const double phi = 0.5, h = 0.5;

@@ -11,19 +11,7 @@ namespace
 {
   std::string channel_case()
   {
-    return lentus::testing::newtonian(1.) + R"(subsection Geometry
-  set Shape = Channel
-  set Refinement = 2
-  subsection Channel
-    set Length = 1
-    set Height = 1
-  end
-end
-subsection Boundary conditions
-  set No-slip = bottom wall, top wall
-  set Pressure = inlet, outlet
-  set Pressure values = 1, 0
-end
+    return lentus::testing::pressure_driven_channel(lentus::testing::newtonian(1.), 2, 1., 1.) + R"(
 subsection Nonlinear solver
   set Mesh sequencing = 1
 end

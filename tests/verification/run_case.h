@@ -51,6 +51,28 @@ end
 )";
   }
 
+  /// A channel 0 < x < `length`, 0 < y < 1 m [m] between two no-slip walls, driven by the pressure
+  /// `inlet_pressure` [Pa] at x = 0 against 0 at x = `length`, after the `rheology` section.
+  inline std::string pressure_driven_channel(const std::string &rheology, const int refinement, const double length,
+                                             const double inlet_pressure)
+  {
+    return rheology + R"(
+subsection Geometry
+  set Shape = Channel
+  set Refinement = )" + std::to_string(refinement) + R"(
+  subsection Channel
+    set Length = )" + std::to_string(length) + R"(
+    set Height = 1
+  end
+end
+subsection Boundary conditions
+  set No-slip = bottom wall, top wall
+  set Pressure = inlet, outlet
+  set Pressure values = )" + std::to_string(inlet_pressure) + R"(, 0
+end
+)";
+  }
+
   /// |a - b| / |b|.
   inline double relative_difference(const double a, const double b)
   {
