@@ -3,6 +3,7 @@
 #include "meshes/gmsh_file.h"
 
 #include <sstream>
+#include <utility>
 
 namespace lentus::meshes::gmsh
 {
@@ -138,7 +139,14 @@ namespace lentus::meshes::gmsh
         }
     }
 
-
+    /// Checks the element's type, then reads its nodes from the rest of its line and keeps it.
+    void add_element(Element element, std::istringstream &entry, const Reader &reader, FileContent &content)
+    {
+      check_element_type(element);
+      for (std::size_t n = 0; n < nodes_of_type(element.type); ++n)
+        element.nodes.push_back(number<long>(entry, reader, "a node of the element"));
+      content.elements.push_back(std::move(element));
+    }
 
     void read_physical_names(Reader &reader, FileContent &content)
     {
@@ -199,10 +207,7 @@ namespace lentus::meshes::gmsh
           for (int t = 0; t < tags; ++t)
             values.push_back(number<int>(entry, reader, "an element tag value"));
           element.physical = values.empty() ? 0 : values[0]; // 2.2: physical tag first, then elementary
-          check_element_type(element);
-          for (std::size_t n = 0; n < nodes_of_type(element.type); ++n)
-            element.nodes.push_back(number<long>(entry, reader, "a node of the element"));
-          content.elements.push_back(element);
+          add_element(std::move(element), entry, reader, content);
         }
       reader.expect_end("Elements");
     }
@@ -280,10 +285,7 @@ namespace lentus::meshes::gmsh
               element.line              = reader.line_number();
               element.physical          = tags.empty() ? 0 : tags[0];
               element.several_physicals = tags.size() > 1;
-              check_element_type(element);
-              for (std::size_t n = 0; n < nodes_of_type(type); ++n)
-                element.nodes.push_back(number<long>(entry, reader, "a node of the element"));
-              content.elements.push_back(element);
+              add_element(std::move(element), entry, reader, content);
             }
         }
       reader.expect_end("Elements");

@@ -14,6 +14,9 @@
 #include <filesystem>
 #include <fstream>
 #include <map>
+#include <string>
+
+#include <unistd.h>
 
 using namespace lentus;
 using ::testing::HasSubstr;
@@ -102,7 +105,33 @@ subsection Boundary conditions
   }
 } // namespace
 
-TEST(GmshMeshFile, RolesCellsScaleAndMaterials)
+/// Each test runs in a folder of its own: ctest runs the tests of this file side by side, and they all
+/// write gmsh_unit_test.msh next to case.prm (the mesh path in a case file is relative to the case file).
+class GmshMeshFile : public ::testing::Test
+{
+protected:
+  void SetUp() override
+  {
+    previous_ = std::filesystem::current_path();
+    const auto *info = ::testing::UnitTest::GetInstance()->current_test_info();
+    folder_ = std::filesystem::temp_directory_path() /
+              ("lentus_gmsh_test_" + std::string(info->name()) + "_" + std::to_string(::getpid()));
+    std::filesystem::create_directories(folder_);
+    std::filesystem::current_path(folder_);
+  }
+  void TearDown() override
+  {
+    std::filesystem::current_path(previous_);
+    std::error_code ignored;
+    std::filesystem::remove_all(folder_, ignored);
+  }
+
+private:
+  std::filesystem::path previous_;
+  std::filesystem::path folder_;
+};
+
+TEST_F(GmshMeshFile, RolesCellsScaleAndMaterials)
 {
   const input::FlowCase flow =
     input::read_flow_case(input::CaseFile::parse(case_with_mesh(two_squares), "case.prm", input::case_schema()));
@@ -132,7 +161,7 @@ TEST(GmshMeshFile, RolesCellsScaleAndMaterials)
   EXPECT_EQ(dynamic_cast<const meshes::GmshMesh &>(*flow.geometry).material_names().at(4), "fluid");
 }
 
-TEST(GmshMeshFile, ClockwiseCellsAreTurned)
+TEST_F(GmshMeshFile, ClockwiseCellsAreTurned)
 {
   const std::string clockwise = replaced(two_squares, "7 3 2 4 1 1 2 5 6", "7 3 2 4 1 1 6 5 2");
   const input::FlowCase flow =
@@ -144,7 +173,7 @@ TEST(GmshMeshFile, ClockwiseCellsAreTurned)
     EXPECT_NEAR(cell->measure(), 1e-4, 1e-15);
 }
 
-TEST(GmshMeshFile, RejectsTriangles)
+TEST_F(GmshMeshFile, RejectsTriangles)
 {
   const std::string triangles = replaced(replaced(two_squares, "8\n1 1 2", "9\n1 1 2"), "$EndElements",
                                          "9 2 2 4 1 1 2 5\n$EndElements");
@@ -154,7 +183,7 @@ TEST(GmshMeshFile, RejectsTriangles)
   EXPECT_THAT(message, HasSubstr("Mesh.RecombineAll = 1"));
 }
 
-TEST(GmshMeshFile, RejectsBoundarySidesWithoutRole)
+TEST_F(GmshMeshFile, RejectsBoundarySidesWithoutRole)
 {
   const std::string no_outlet = replaced(replaced(two_squares, "3 1 2 2 2 3 4\n", ""), "8\n1 1 2", "7\n1 1 2");
   EXPECT_THAT(message_of(case_with_mesh(no_outlet)),
@@ -162,7 +191,7 @@ TEST(GmshMeshFile, RejectsBoundarySidesWithoutRole)
                         "to no physical curve; allowed: every boundary curve in a named physical curve"));
 }
 
-TEST(GmshMeshFile, RejectsUnnamedAndUnusablePhysicalCurves)
+TEST_F(GmshMeshFile, RejectsUnnamedAndUnusablePhysicalCurves)
 {
   const std::string unnamed = replaced(replaced(two_squares, "1 2 \"outlet\"\n", ""), "4\n1 1 \"inlet\"", "3\n1 1 \"inlet\"");
   EXPECT_THAT(message_of(case_with_mesh(unnamed)),
@@ -173,7 +202,7 @@ TEST(GmshMeshFile, RejectsUnnamedAndUnusablePhysicalCurves)
               HasSubstr("mesh file line 6: physical curve 1 is named 'in,let', which cannot be a role name"));
 }
 
-TEST(GmshMeshFile, AxisymmetricNeedsPositiveRadius)
+TEST_F(GmshMeshFile, AxisymmetricNeedsPositiveRadius)
 {
   const std::string shifted = replaced(two_squares, "1 0 0 0\n", "1 -0.5 0 0\n");
   EXPECT_THAT(message_of(case_with_mesh(shifted, "axisymmetric",
@@ -185,7 +214,7 @@ TEST(GmshMeshFile, AxisymmetricNeedsPositiveRadius)
             "(no error)");
 }
 
-TEST(GmshMeshFile, RolesOfTheMeshInConditions)
+TEST_F(GmshMeshFile, RolesOfTheMeshInConditions)
 {
   EXPECT_THAT(message_of(case_with_mesh(two_squares, "planar",
                                         "  set No-slip = wall, exit\n  set Pressure = inlet, outlet\n"
@@ -199,7 +228,7 @@ TEST(GmshMeshFile, RolesOfTheMeshInConditions)
                         "(0.025, 0.01) that is not parallel to a coordinate axis"));
 }
 
-TEST(GmshMeshFile, InflowOnOneSegment)
+TEST_F(GmshMeshFile, InflowOnOneSegment)
 {
   // The developed inflow profile of an axisymmetric case reaches from the axis at one z.
   EXPECT_THAT(message_of(case_with_mesh(two_squares, "axisymmetric",
@@ -215,7 +244,7 @@ TEST(GmshMeshFile, InflowOnOneSegment)
             "(no error)");
 }
 
-TEST(GmshMeshFile, RecordedCaseNamesTheMeshByItsAbsolutePath)
+TEST_F(GmshMeshFile, RecordedCaseNamesTheMeshByItsAbsolutePath)
 {
   // case.prm in a results folder runs from anywhere.
   const input::FlowCase flow =
@@ -225,7 +254,7 @@ TEST(GmshMeshFile, RecordedCaseNamesTheMeshByItsAbsolutePath)
                         " "));
 }
 
-TEST(GmshMeshFile, FileProblems)
+TEST_F(GmshMeshFile, FileProblems)
 {
   const std::string missing = replaced(case_with_mesh(two_squares), "gmsh_unit_test.msh", "no_such.msh");
   EXPECT_THAT(message_of(missing), HasSubstr("case.prm:12: Geometry/Gmsh mesh/File = no_such.msh: cannot open the "
