@@ -71,7 +71,7 @@ TEST_P(PowerLawSlit, FlowRateAndEnergyBalance)
   // Source: Bird, Stewart & Lightfoot, Transport Phenomena (power-law slit flow); CHECKS.md A1:
   // q = (2n/(2n+1)) (G/K)^(1/n) h^(2+1/n), G = 1 Pa/m, K = 1 Pa s^n, h = 0.5 m.
   const double q      = 2. * n / (2. * n + 1.) * std::pow(0.5, 2. + 1. / n);
-  const auto   result = run_case("power_law_slit", channel_case(power_law(n), 3));
+  const auto   result = run_case("power_law_slit_n" + std::to_string(n), channel_case(power_law(n), 3));
   ASSERT_TRUE(result.converged) << result.reason;
   EXPECT_LT(relative(result.number("flow rate out through outlet"), q), 0.005) << "n = " << n;
   // Momentum balance of developed flow (Bird, Stewart & Lightfoot 2002, sec. 2.2): the walls hold
@@ -93,7 +93,7 @@ TEST_P(PowerLawPipe, FlowRateAndEnergyBalance)
   // Source: CHECKS.md A2 (Chhabra & Richardson 2008, ch. 3): Q = (pi n/(3n+1)) R^3 (tau_w/K)^(1/n),
   // R = 1 m, tau_w = G R/2 = 1 Pa, K = 1 Pa s^n.
   const double Q      = M_PI * n / (3. * n + 1.);
-  const auto   result = run_case("power_law_pipe", pipe_case(power_law(n), 3));
+  const auto   result = run_case("power_law_pipe_n" + std::to_string(n), pipe_case(power_law(n), 3));
   ASSERT_TRUE(result.converged) << result.reason;
   EXPECT_LT(relative(result.number("flow rate out through outlet"), Q), 0.005) << "n = " << n;
   // Momentum balance (Bird, Stewart & Lightfoot 2002, sec. 2.3): F_z = -dp pi R^2 = -2 pi N, within 0.5%.

@@ -14,7 +14,8 @@
 
 namespace lentus::testing
 {
-  /// Solves `text` (a case file) with its output in build/tests/verification/out/<name>.
+  /// Solves `text` (a case file) with its output in build/tests/verification_out/<name> (a folder per test:
+  /// ctest runs the tests side by side).
   inline input::FlowCase flow_case(const std::string &name,
                                    const std::string &text,
                                    std::vector<std::string> overrides = {})
