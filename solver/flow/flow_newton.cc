@@ -6,6 +6,7 @@
 #include "rheology/shift/temperature_shift.h"
 #include "solver/errors.h"
 #include "solver/flow/flow_state.h"
+#include "solver/flow/mesh_sequencing.h"
 
 #include <deal.II/base/timer.h>
 
@@ -298,23 +299,38 @@ namespace lentus::flow
     }
   } // namespace
 
+  // From 30000 unknowns up, measured: Bingham cavity, Bn 20, 37507 unknowns: 31 s against 69 s
+  // from rest; bladed gel vessel demo, 42592 unknowns: 41 s against 114 s. The first mesh down to
+  // about 15000 unknowns: on the Bingham cavity, Bn 20, with 592387 unknowns, a first mesh of 37507
+  // unknowns took 40 Newton steps from rest on 1 rank but 115 with continuation on 2; one of 9539
+  // took 38 and 41, and the whole solve 386 s against 423 s on 1 rank, 232 s against 269 s on 2.
+  unsigned int automatic_coarser_levels(const double unknowns, const unsigned int refinement)
+  {
+    const double automatic_from = 3e4, first_mesh = 1.5e4;
+    if (unknowns <= automatic_from)
+      return 0;
+    unsigned int levels = std::min(2u, refinement);
+    while (levels < std::min(4u, refinement) && unknowns / std::pow(4., levels) > first_mesh)
+      ++levels;
+    return levels;
+  }
+
   SolveReport solve_with_mesh_sequencing(FlowState &state)
   {
     const input::FlowCase &flow = state.flow;
-    // Automatic: two coarser meshes when the mesh is large (about 4x fewer unknowns per level).
-    // Measured from 30000 unknowns up: Bingham cavity, Bn 20, 37507 unknowns: 31 s against 69 s
-    // from rest; bladed gel vessel demo, 42592 unknowns: 41 s against 114 s.
-    const double       automatic_from   = 3e4;
-    const unsigned int automatic_levels = std::min(2u, flow.refinement);
-    unsigned int       levels = flow.mesh_sequencing >= 0 ? static_cast<unsigned int>(flow.mesh_sequencing) :
-                                                            automatic_levels;
+    const bool   automatic = flow.mesh_sequencing < 0;
+    unsigned int levels    = automatic ? std::min(2u, flow.refinement) : static_cast<unsigned int>(flow.mesh_sequencing);
     create_mesh(state, flow.refinement - levels);
-    state.dof_handler.distribute_dofs(state.fe); // to count the unknowns
-    if (flow.mesh_sequencing < 0 && levels > 0 &&
-        static_cast<double>(state.dof_handler.n_dofs()) * std::pow(4., levels) <= automatic_from)
+    if (automatic && levels > 0)
       {
-        state.triangulation.refine_global(levels);
-        levels = 0;
+        state.dof_handler.distribute_dofs(state.fe); // to count the unknowns
+        const unsigned int chosen = automatic_coarser_levels(
+          static_cast<double>(state.dof_handler.n_dofs()) * std::pow(4., levels), flow.refinement);
+        if (chosen < levels)
+          state.triangulation.refine_global(levels - chosen);
+        else if (chosen > levels)
+          create_mesh(state, flow.refinement - chosen);
+        levels = chosen;
       }
     setup_dofs(state);
     SolveReport report;
