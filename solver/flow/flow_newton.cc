@@ -319,7 +319,8 @@ namespace lentus::flow
   {
     const input::FlowCase &flow = state.flow;
     const bool   automatic = flow.mesh_sequencing < 0;
-    unsigned int levels    = automatic ? std::min(2u, flow.refinement) : static_cast<unsigned int>(flow.mesh_sequencing);
+    unsigned int levels    = automatic ? std::min(2u, flow.refinement) :
+                                         static_cast<unsigned int>(flow.mesh_sequencing);
     create_mesh(state, flow.refinement - levels);
     if (automatic && levels > 0)
       {

@@ -163,8 +163,8 @@ namespace lentus::input
                    ValueKind::selection({"automatic", "0", "1", "2", "3", "4"}),
                    "Solve first on meshes this many levels coarser than Geometry/Refinement, each finer mesh "
                    "starting from the solution interpolated from the one before: fewer and cheaper Newton steps "
-                   "on large meshes. automatic: none up to 30000 unknowns; above, at least 2 levels and as many as bring the first "
-                   "mesh down to about 15000 unknowns (at most 4).");
+                   "on large meshes. automatic: none up to 30000 unknowns; above, at least 2 levels and as many "
+                   "as bring the first mesh down to about 15000 unknowns (at most 4).");
     schema.declare("Linear solver/Type", "automatic", ValueKind::selection({"automatic", "direct", "iterative"}),
                    "direct: sparse LU (MUMPS); iterative: FGMRES with a block-triangular preconditioner "
                    "(AMG on velocity, 1/eta-weighted pressure mass matrix).");
