@@ -2,7 +2,7 @@
 // check the rule the key's help and the README state (not physics): none up to 30000 unknowns;
 // above, at least 2 and as many as bring the first mesh to about 15000 unknowns or fewer, at
 // most 4 and never more than Geometry/Refinement. Unknown counts of the Bingham cavity (Q2-Q1 on
-// the unit square, 2 (2^L 2 + 1)^2 + (2^L + 1)^2 at level L) are exact.
+// the unit square, 2 (2^(L+1) + 1)^2 + (2^L + 1)^2 at level L) are exact.
 #include <gtest/gtest.h>
 
 #include "solver/flow/mesh_sequencing.h"
