@@ -6,13 +6,19 @@
 #include "meshes/straight_section.h"
 #include "rheology/parameter_table.h"
 
-#include <deal.II/grid/tria.h>
+#include <deal.II/base/types.h>
 
 #include <functional>
 #include <map>
 #include <memory>
 #include <string>
 #include <vector>
+
+namespace dealii
+{
+  template <int dim, int spacedim>
+  class Triangulation;
+} // namespace dealii
 
 namespace lentus::meshes
 {
@@ -34,7 +40,7 @@ namespace lentus::meshes
     virtual std::vector<StraightSection> straight_sections() const { return {}; }
 
     /// Builds the coarse mesh with boundary ids, refined `refinement` times.
-    virtual void create_mesh(dealii::Triangulation<2> &triangulation, unsigned int refinement) const = 0;
+    virtual void create_mesh(dealii::Triangulation<2, 2> &triangulation, unsigned int refinement) const = 0;
 
     /// Role name -> boundary id, for every boundary of the shape.
     virtual std::map<std::string, dealii::types::boundary_id> boundary_roles() const = 0;

@@ -31,7 +31,7 @@ namespace lentus::meshes
     GmshMesh(const std::string &path, double scale);
     ~GmshMesh() override;
 
-    void create_mesh(dealii::Triangulation<2> &triangulation, unsigned int refinement) const override;
+    void create_mesh(dealii::Triangulation<2, 2> &triangulation, unsigned int refinement) const override;
     std::map<std::string, dealii::types::boundary_id> boundary_roles() const override;
     Symmetry symmetry() const override { return Symmetry::either; }
 

@@ -1,6 +1,7 @@
 // Rectangular shapes meshed by subdivided rectangles with near-square cells.
 #include "meshes/shapes/basic_shapes.h"
 
+#include <deal.II/grid/tria.h>
 #include <deal.II/grid/grid_generator.h>
 
 #include <array>

@@ -96,7 +96,9 @@ namespace lentus::report
       }
     json["caution"]       = caution;
     json["case cautions"] = summary.case_cautions;
-    return json.dump(2) + "\n";
+    // Text that is not valid UTF-8 (a case path, say) is written with replacement characters
+    // rather than failing a finished solve.
+    return json.dump(2, ' ', false, Json::error_handler_t::replace) + "\n";
   }
 
   std::vector<std::string> design_number_lines(const DesignNumbers &numbers)

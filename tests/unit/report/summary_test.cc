@@ -85,6 +85,16 @@ TEST(Summary, MeshesAndSolvesAsRecorded)
   EXPECT_EQ(numerics.at("solves").at(1).at("label"), "from the coarser mesh");
 }
 
+// Text that is not UTF-8 (a file name from another system, say) does not fail a finished run.
+TEST(Summary, TextThatIsNotUtf8IsReplaced)
+{
+  Summary summary   = two_mesh_summary();
+  summary.case_file = "case\xff\xfe.prm";
+  std::string text;
+  ASSERT_NO_THROW(text = to_json(summary));
+  EXPECT_NO_THROW(nlohmann::json::parse(text));
+}
+
 TEST(DesignNumbers, ANameTwiceIsAnError)
 {
   DesignNumbers numbers;
