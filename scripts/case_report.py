@@ -321,7 +321,7 @@ def write_report(case, pictures, failures):
 <ul class="checks">
 {checks}
 </ul></section>
-<section id="key-numbers"><h2>Key results</h2>
+<section id="key-numbers"><h2>Key results{key_status}</h2>
 {key_numbers}
 </section>
 <section id="design-numbers"><h2>All design numbers</h2>
@@ -351,6 +351,7 @@ below the yield stress tau_y. It is 1/sqrt(3) of the von Mises equivalent stress
            overview=" &middot; ".join("%s: <strong>%s</strong>" % (_escape(k), _escape(v))
                                       for k, v in overview if v != ""),
            status_class="converged" if converged else "failed", status=_escape(status),
+           key_status="" if converged else " (NOT CONVERGED: the last iterate, not to be used)",
            cautions=_cautions(summary), checks=_checks(case, failures), key_numbers=_key_numbers(numbers),
            numbers=_number_table(numbers), figures=figures or "<p>No pictures.</p>",
            solve_facts=_solve_facts(summary), numerics=_numerics(summary), inputs=_inputs(case),
