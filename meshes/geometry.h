@@ -3,6 +3,7 @@
 // design numbers refer to roles ("inlet", "wall", "axis"...), never to ids.
 #pragma once
 
+#include "meshes/straight_section.h"
 #include "rheology/parameter_table.h"
 
 #include <deal.II/grid/tria.h>
@@ -21,18 +22,6 @@ namespace lentus::meshes
     planar_only,        ///< x, y
     axisymmetric_only,  ///< x[0] = r >= 0, x[1] = z
     either
-  };
-
-  /// A straight stretch of a shape where the flow can become fully developed
-  /// (a die's barrel or land), for developed-flow comparisons such as entrance losses.
-  struct StraightSection
-  {
-    std::string name;   ///< e.g. "barrel", "land"
-    bool        pipe;   ///< true: circular (radius), false: slit (half-gap)
-    double      size;   ///< radius or half-gap [m]
-    double      length; ///< [m]
-    double      flow_fraction = 1.; ///< share of the section's flow the mesh carries (0.5: half a slit)
-    double      inner = 0.; ///< circular only: radius of a concentric core (mandrel) [m], 0 for none
   };
 
   /// A sized shape, ready to mesh.

@@ -1,6 +1,6 @@
 // Profiles of a die as CSV: the velocity across the exit, and the wall shear rate and stress
 // along every no-slip wall (for the land: the developed values, the entry overshoot and the exit).
-#include "solver/flow/flow_report.h"
+#include "solver/flow/fields.h"
 
 #include "solver/formulation/kinematics.h"
 

@@ -46,7 +46,7 @@ namespace lentus::flow
     /// Newton steps), so that continuation can take over early.
     /// `reference_residual` > 0 replaces the first residual as the measure of the relative tolerance
     /// (a start interpolated from a coarser mesh is already closer than the state at rest).
-    bool iterate(FlowState &state, const bool direct, SolveReport &report, std::string &why,
+    bool iterate(FlowState &state, const bool direct, SolveOutcome &outcome, const std::string &label, std::string &why,
                  const bool give_up_when_stalled = false, const unsigned int max_picard_steps = ~0u,
                  const double reference_residual = 0.)
     {
@@ -64,6 +64,7 @@ namespace lentus::flow
       const double reference  = reference_residual > 0. ? reference_residual : first;
       const double target     = std::max(flow.relative_tolerance * reference, flow.absolute_tolerance);
       state.log.line(format("  initial residual %.3e", first));
+      outcome.history.begin_solve(label, first);
       if (!std::isfinite(first))
         {
           why = "the residual of the initial iterate is not finite";
@@ -97,7 +98,6 @@ namespace lentus::flow
               why = error.what();
               return false;
             }
-          report.linear_iterations += linear_iterations;
 
           // Backtracking: accept the first step length that lowers the residual norm enough.
           double step = 1., trial_residual = 0.;
@@ -136,10 +136,10 @@ namespace lentus::flow
           state.solution = ghosted;
           previous       = residual;
           residual       = trial_residual;
-          const char *name = linearization == Linearization::picard ? "Picard" : "Newton";
-          report.iterations.push_back(
-            {iteration, name, residual, step, linear_iterations, timer.wall_time(), state.dof_handler.n_dofs()});
-          state.log.line(format("  %3.0f ", iteration) + name +
+          const report::StepKind kind =
+            linearization == Linearization::picard ? report::StepKind::picard : report::StepKind::newton;
+          outcome.history.add({kind, residual, step, linear_iterations, timer.wall_time()});
+          state.log.line(format("  %3.0f ", iteration) + report::to_string(kind) +
                          format("  residual %.3e  step %.3g", residual, step) +
                          format("  linear iterations %.0f  %.2f s", linear_iterations, timer.wall_time()));
           if (residual <= target)
@@ -166,35 +166,44 @@ namespace lentus::flow
     }
 
     /// The linear solver of Linear solver/Type on the current mesh ("automatic": by size).
-    bool use_direct(const FlowState &state, SolveReport &report)
+    bool use_direct(const FlowState &state)
     {
-      const input::FlowCase &flow   = state.flow;
-      const bool             direct = flow.linear_solver == "direct" ||
-                          (flow.linear_solver == "automatic" && state.dof_handler.n_dofs() <= flow.direct_limit);
-      report.linear_solver = direct ? "direct (MUMPS)" : "FGMRES, block-triangular preconditioner";
-      return direct;
+      const input::FlowCase &flow = state.flow;
+      return flow.linear_solver == "direct" ||
+             (flow.linear_solver == "automatic" && state.dof_handler.n_dofs() <= flow.direct_limit);
+    }
+
+    std::string linear_solver_name(const bool direct)
+    {
+      return direct ? "direct (MUMPS)" : "FGMRES, block-triangular preconditioner";
+    }
+
+    /// Starts the history's record of the current mesh.
+    void record_mesh(FlowState &state, SolveOutcome &outcome)
+    {
+      outcome.history.begin_mesh(state.triangulation.n_global_active_cells(), state.dof_handler.n_dofs(),
+                                 linear_solver_name(use_direct(state)));
     }
   } // namespace
 
-  void solve_nonlinear(FlowState &state, SolveReport &report)
+  void solve_nonlinear(FlowState &state, SolveOutcome &outcome)
   {
     const input::FlowCase &flow = state.flow;
-    report.converged            = false;
-    report.reason.clear();
+    outcome.converged           = false;
+    outcome.reason.clear();
     const auto             n_dofs = state.dof_handler.n_dofs();
-    if (report.meshes.empty() || report.meshes.back() != n_dofs)
-      report.meshes.push_back(n_dofs);
-    const bool             direct = use_direct(state, report);
-    state.log.line("Nonlinear solve: " + std::to_string(n_dofs) + " unknowns, linear solver " + report.linear_solver);
+    const bool             direct = use_direct(state);
+    state.log.line("Nonlinear solve: " + std::to_string(n_dofs) + " unknowns, linear solver " +
+                   linear_solver_name(direct));
 
     initial_solution(state);
     std::string why;
     // The direct attempt may crawl for a while and still converge sooner than continuation would
     // (Bingham cavity, Bn = 20, level 5: 34 Newton steps, against 46 when it gives up early), so it
     // is not cut short.
-    if (iterate(state, direct, report, why))
+    if (iterate(state, direct, outcome, "direct solve", why))
       {
-        report.converged = true;
+        outcome.converged = true;
         return;
       }
     state.log.line("  direct attempt failed: " + why);
@@ -228,7 +237,7 @@ namespace lentus::flow
       }
     if (!flow.continuation || key.empty())
       {
-        report.reason = why;
+        outcome.reason = why;
         return;
       }
     state.log.line("Continuation in " + key + ":");
@@ -239,31 +248,32 @@ namespace lentus::flow
           state.density = value;
         else
           state.law = law_with(fluid, key, value);
-        report.continuation_steps.push_back(key + " = " + rheology::format_short(value));
-        state.log.line(" " + key + " = " + rheology::format_short(value));
+        const std::string label = key + " = " + rheology::format_short(value);
+        outcome.history.add_continuation_step(label);
+        state.log.line(" " + label);
         // Each step starts next to the previous solution: Newton at once (two Picard steps at most
         // for the first, which starts from rest); a stalled Newton gets a second try with Picard.
         // The retry starts again from the previous step's solution, with the usual Picard start.
         const unsigned int picard_steps = value == path.front() ? 2u : 0u;
         const Vector       start        = state.solution;
-        bool               done         = iterate(state, direct, report, why, true, picard_steps);
+        bool               done         = iterate(state, direct, outcome, label, why, true, picard_steps);
         if (!done)
           {
             state.log.line("  Newton from the previous step failed (" + why + "); again with Picard steps first");
             state.solution = start;
-            done           = iterate(state, direct, report, why);
+            done           = iterate(state, direct, outcome, label + " (retry with Picard steps)", why);
           }
         if (!done)
           {
             state.law     = fluid.law;
             state.density = full_density;
-            report.reason = "continuation in " + key + " failed at " + rheology::format_short(value) + ": " + why;
+            outcome.reason = "continuation in " + key + " failed at " + rheology::format_short(value) + ": " + why;
             return;
           }
       }
     state.density    = full_density;
-    state.law        = fluid.law;
-    report.converged = true;
+    state.law         = fluid.law;
+    outcome.converged = true;
   }
 
   namespace
@@ -281,20 +291,19 @@ namespace lentus::flow
     /// come first here too: Newton started at once from the interpolated solution crawls (Bingham
     /// cavity, Bn = 20, M = 1000: its steps are cut to 1/8 - 1/64 by the line search and it
     /// stalls), as the yield surfaces move when the mesh is refined.
-    bool solve_from_interpolated(FlowState &state, SolveReport &report)
+    bool solve_from_interpolated(FlowState &state, SolveOutcome &outcome)
     {
-      report.meshes.push_back(state.dof_handler.n_dofs());
-      const bool direct = use_direct(state, report);
-      state.log.line("Nonlinear solve from the coarser mesh's solution, linear solver " + report.linear_solver);
+      const bool direct = use_direct(state);
+      state.log.line("Nonlinear solve from the coarser mesh's solution, linear solver " + linear_solver_name(direct));
       // The tolerance stays relative to the residual of the state at rest, as on a cold start.
       const Vector start = state.solution;
       initial_solution(state);
       const double at_rest = assemble(state, state.solution, Linearization::none);
       state.solution       = start;
       std::string why;
-      if (iterate(state, direct, report, why, false, ~0u, at_rest))
+      if (iterate(state, direct, outcome, "from the coarser mesh", why, false, ~0u, at_rest))
         return true;
-      report.reason = why;
+      outcome.reason = why;
       return false;
     }
   } // namespace
@@ -315,7 +324,7 @@ namespace lentus::flow
     return levels;
   }
 
-  SolveReport solve_with_mesh_sequencing(FlowState &state)
+  SolveOutcome solve_with_mesh_sequencing(FlowState &state)
   {
     const input::FlowCase &flow = state.flow;
     const bool   automatic = flow.mesh_sequencing < 0;
@@ -334,7 +343,8 @@ namespace lentus::flow
         levels = chosen;
       }
     setup_dofs(state);
-    SolveReport report;
+    SolveOutcome outcome;
+    record_mesh(state, outcome);
     log_mesh(state, levels > 0 ? "Mesh sequencing over " + std::to_string(levels + 1) + " meshes; first " : "");
     const auto attempt = [&](const auto &solve) {
       try
@@ -343,25 +353,26 @@ namespace lentus::flow
         }
       catch (const NoConvergence &error)
         {
-          report.converged = false;
-          report.reason    = error.what();
+          outcome.converged = false;
+          outcome.reason    = error.what();
         }
     };
-    attempt([&] { solve_nonlinear(state, report); });
+    attempt([&] { solve_nonlinear(state, outcome); });
     for (unsigned int remaining = levels; remaining > 0; --remaining)
       {
-        const bool follow = report.converged;
+        const bool follow = outcome.converged;
         refine_and_transfer(state);
+        record_mesh(state, outcome);
         log_mesh(state, remaining > 1 ? "Finer " : "Final ");
         if (follow)
-          attempt([&] { report.converged = solve_from_interpolated(state, report); });
-        if (!report.converged && remaining == 1)
+          attempt([&] { outcome.converged = solve_from_interpolated(state, outcome); });
+        if (!outcome.converged && remaining == 1)
           {
             // Sequencing failed: solve the final mesh from rest, as without mesh sequencing.
-            state.log.line("  mesh sequencing did not converge (" + report.reason + "); solving from rest");
-            attempt([&] { solve_nonlinear(state, report); });
+            state.log.line("  mesh sequencing did not converge (" + outcome.reason + "); solving from rest");
+            attempt([&] { solve_nonlinear(state, outcome); });
           }
       }
-    return report;
+    return outcome;
   }
 } // namespace lentus::flow

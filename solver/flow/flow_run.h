@@ -2,46 +2,31 @@
 #pragma once
 
 #include "solver/input/flow_case.h"
+#include "solver/report/design_number.h"
+#include "solver/report/solve_history.h"
 
 #include <deal.II/base/point.h>
 #include <deal.II/base/tensor.h>
 
 #include <mpi.h>
 
-#include <cstdint>
 #include <functional>
 #include <memory>
-
 #include <string>
 #include <vector>
 
 namespace lentus::flow
 {
-  struct DesignNumber
-  {
-    std::string name;
-    double      value;
-    std::string unit;
-  };
-
-  /// The nonlinear iterations on one mesh of the solve (several under mesh sequencing).
-  struct MeshSteps
-  {
-    std::uint64_t unknowns = 0;
-    unsigned int  newton = 0, picard = 0, linear = 0; ///< iterations
-    double        seconds = 0.;                       ///< in the nonlinear iterations
-  };
-
   struct RunResult
   {
-    bool                      converged = false;
-    std::string               reason;  ///< why not converged
-    std::vector<DesignNumber> numbers; ///< of the last iterate
-    unsigned int              newton_iterations = 0; ///< on the final mesh
-    std::vector<MeshSteps>    meshes;                ///< coarsest first; the last is the final mesh
+    bool                            converged = false;
+    std::string                     reason;  ///< why not converged
+    report::DesignNumbers           numbers; ///< of the last iterate
+    unsigned int                    newton_iterations = 0; ///< on the final mesh
+    std::vector<report::MeshRecord> meshes;                ///< coarsest first; the last is the final mesh
 
     /// The value of the design number `name`; throws std::out_of_range if absent.
-    double number(const std::string &name) const;
+    double number(const std::string &name) const { return numbers.value(name); }
   };
 
   /// Runs the case on `communicator` and writes its folder (also when not
@@ -72,7 +57,4 @@ namespace lentus::flow
     std::unique_ptr<FlowState> state;
     RunResult                  run_result;
   };
-
-  /// Solves, computes the design numbers and writes the folder.
-  RunResult solve_and_report(FlowState &state);
 } // namespace lentus::flow

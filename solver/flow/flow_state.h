@@ -4,6 +4,7 @@
 
 #include "rheology/viscosity_law.h"
 #include "solver/input/flow_case.h"
+#include "solver/report/solve_history.h"
 
 #include <deal.II/base/conditional_ostream.h>
 #include <deal.II/base/index_set.h>
@@ -14,7 +15,6 @@
 #include <deal.II/lac/petsc_sparse_matrix.h>
 #include <deal.II/lac/petsc_vector.h>
 
-#include <cstdint>
 #include <memory>
 #include <sstream>
 #include <string>
@@ -25,27 +25,12 @@ namespace lentus::flow
   using Vector = dealii::PETScWrappers::MPI::Vector;
   using Matrix = dealii::PETScWrappers::MPI::SparseMatrix;
 
-  /// One line per nonlinear iteration.
-  struct IterationRecord
+  /// The outcome of a solve: converged or why not, and what the solver did on each mesh.
+  struct SolveOutcome
   {
-    unsigned int iteration;
-    std::string  kind;     ///< "Picard" or "Newton"
-    double       residual; ///< after the step
-    double       step;     ///< line-search step length
-    unsigned int linear_iterations;
-    double       seconds;
-    std::uint64_t unknowns; ///< of the mesh the step was taken on (mesh sequencing)
-  };
-
-  struct SolveReport
-  {
-    bool                         converged = false;
-    std::string                  reason;
-    std::vector<IterationRecord> iterations;
-    unsigned int                 linear_iterations = 0;
-    std::string                  linear_solver;
-    std::vector<std::string>     continuation_steps;
-    std::vector<std::uint64_t>   meshes; ///< unknowns of each mesh solved on, coarsest first
+    bool                 converged = false;
+    std::string          reason; ///< why not converged
+    report::SolveHistory history;
   };
 
   /// Messages go to standard output (rank 0) and into the case's log.
@@ -123,8 +108,8 @@ namespace lentus::flow
   // flow_newton.cc
   /// Newton with line search, Picard start and continuation on the current mesh, from rest.
   /// Appends to `report`; leaves the last iterate in state.solution.
-  void solve_nonlinear(FlowState &state, SolveReport &report);
+  void solve_nonlinear(FlowState &state, SolveOutcome &outcome);
   /// The whole solve: creates the mesh (and its coarser ones under mesh sequencing), solves on
   /// each, and leaves the state on the mesh of Geometry/Refinement.
-  SolveReport solve_with_mesh_sequencing(FlowState &state);
+  SolveOutcome solve_with_mesh_sequencing(FlowState &state);
 } // namespace lentus::flow

@@ -1,3 +1,4 @@
+#include "solver/formulation/formulation.h"
 #include "solver/formulation/kinematics.h"
 
 namespace lentus
@@ -12,6 +13,20 @@ namespace lentus
           return "axisymmetric";
         case FormulationKind::swirl:
           return "axisymmetric with swirl";
+      }
+    return "";
+  }
+
+  const char *velocity_components(const FormulationKind kind)
+  {
+    switch (kind)
+      {
+        case FormulationKind::planar:
+          return "x y";
+        case FormulationKind::axisymmetric:
+          return "r z";
+        case FormulationKind::swirl:
+          return "r z theta";
       }
     return "";
   }

@@ -142,7 +142,7 @@ namespace lentus::sweep
           row.status            = result.converged ? status::converged : status::not_converged;
           row.reason            = result.reason;
           row.newton_iterations = result.newton_iterations;
-          for (const flow::DesignNumber &number : result.numbers)
+          for (const report::DesignNumber &number : result.numbers.all())
             row.numbers.push_back({number.name, number.value, number.unit});
         }
       catch (const InputError &error)

@@ -1,8 +1,8 @@
-// Vessel numbers. The cavern is the set of yielded cells connected through faces to the
+// Vessel integrals: dead zones and the cavern. The cavern is the set of yielded cells connected through faces to the
 // impeller; it is found on rank 0 from every rank's cells (a 2D mesh's cell list is small). Its
 // radius and height come from the yield surface: the zero of the yield margin |tau| - tau_y,
 // sampled on a grid of points in each cell and averaged where cells share a point.
-#include "solver/flow/vessel_numbers.h"
+#include "solver/flow/vessel_integrals.h"
 
 #include <deal.II/base/mpi.h>
 #include <deal.II/base/quadrature_lib.h>
@@ -62,51 +62,17 @@ namespace lentus::flow
     }
   } // namespace
 
-  void append_vessel_numbers(const FlowState &state, const std::map<std::string, double> &torque_on_fluid,
-                             std::vector<DesignNumber> &numbers)
+  report::VesselIntegrals vessel_integrals(const FlowState &state)
   {
-    if (!has_impeller(state))
-      return;
     const input::FlowCase &flow         = state.flow;
     const bool             axisymmetric = is_axisymmetric(state.kind);
-    const std::string      per          = axisymmetric ? "" : "/m";
-    const double           N            = flow.rotation_speed;
-    const double           omega        = flow.impeller_omega();
-    const double           D            = flow.geometry->impeller_diameter();
-    const double           rho          = flow.fluid.density; // NaN when not given
     const double           tau_y        = state.law->yield_stress();
-    const double           tip_speed    = M_PI * N * D;
-
-    // Torque and power the impeller roles put into the fluid.
+    const double           tip_speed    = M_PI * flow.rotation_speed * flow.geometry->impeller_diameter();
     std::set<types::boundary_id> impeller_ids;
-    double                       torque = 0.;
-    const auto                   roles  = flow.geometry->boundary_roles();
+    const auto                   roles = flow.geometry->boundary_roles();
     for (const input::BoundaryCondition &bc : flow.conditions)
       if (bc.type == input::BoundaryCondition::Type::impeller)
-        {
-          impeller_ids.insert(roles.at(bc.role));
-          torque += torque_on_fluid.at(bc.role);
-        }
-    const double power = omega * torque;
-    numbers.push_back({"impeller torque", torque, "N m" + per});
-    numbers.push_back({"impeller power", power, "W" + per});
-    if (D > 0.)
-      {
-        numbers.push_back({"impeller tip speed", tip_speed, "m/s"});
-        // Metzner & Otto (1957): effective shear rate k_s N and the apparent viscosity there.
-        const double rate     = flow.metzner_otto_constant * N;
-        const double apparent = state.law->evaluate(rate).value;
-        numbers.push_back({"Metzner-Otto shear rate", rate, "1/s"});
-        numbers.push_back({"apparent viscosity at the Metzner-Otto shear rate", apparent, "Pa s"});
-        if (!std::isnan(rho))
-          {
-            // Po = P / (rho N^3 D^5); per metre of depth when planar: P' / (rho N^3 D^4).
-            numbers.push_back({"power number", power / (rho * N * N * N * std::pow(D, axisymmetric ? 5 : 4)), "-"});
-            numbers.push_back({"Metzner-Otto Reynolds number", rho * N * D * D / apparent, "-"});
-            if (tau_y > 0.)
-              numbers.push_back({"yield Reynolds number", rho * N * N * D * D / tau_y, "-"});
-          }
-      }
+        impeller_ids.insert(roles.at(bc.role));
 
     // Dead zones and the cells of the cavern.
     const QGauss<2>                        quadrature(state.fe.degree + 1);
@@ -184,11 +150,13 @@ namespace lentus::flow
           records.push_back(record);
         }
     Utilities::MPI::sum(ArrayView<const double>(sums, 4), state.comm, ArrayView<double>(sums, 4));
-    numbers.push_back({"dead-zone area fraction", sums[2] / sums[0], "-"});
-    if (axisymmetric)
-      numbers.push_back({"dead-zone volume fraction", sums[3] / sums[1], "-"});
+    report::VesselIntegrals result;
+    result.area        = sums[0];
+    result.volume      = sums[1];
+    result.dead_area   = sums[2];
+    result.dead_volume = sums[3];
     if (!(tau_y > 0.))
-      return;
+      return result;
 
     // Cavern: flood fill on rank 0 from the yielded cells at the impeller through yielded neighbours.
     scale                 = Utilities::MPI::max(scale, state.comm);
@@ -276,14 +244,9 @@ namespace lentus::flow
         cavern[1] = cavern[3] > 0. && top >= bottom ? top - bottom : 0.; // no yielded sample: no extent
       }
     MPI_Bcast(cavern, 4, MPI_DOUBLE, 0, state.comm);
-    // The cavern's extent: the interpolated yield surface (see the margin averaging above).
-    numbers.push_back({"cavern radius", cavern[0], "m"});
-    if (axisymmetric)
-      {
-        numbers.push_back({"cavern height", cavern[1], "m"});
-        numbers.push_back({"cavern volume fraction", cavern[2] / sums[1], "-"});
-      }
-    else
-      numbers.push_back({"cavern area fraction", cavern[2] / sums[0], "-"});
+    result.cavern_radius  = cavern[0];
+    result.cavern_height  = cavern[1];
+    result.cavern_measure = cavern[2];
+    return result;
   }
 } // namespace lentus::flow

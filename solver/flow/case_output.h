@@ -1,0 +1,21 @@
+// What a run writes and says: the log's opening lines, the case folder's files, and
+// the in-memory result returned to callers.
+#pragma once
+
+#include "solver/flow/flow_run.h"
+#include "solver/flow/flow_state.h"
+#include "solver/report/case_folder.h"
+#include "solver/report/summary.h"
+
+namespace lentus::flow
+{
+  /// The log's first lines: version, case, ranks, fluid and velocity components.
+  void log_start(FlowState &state);
+
+  /// Logs the status and design numbers, and writes the folder: fields (VTU/PVD), die profiles
+  /// (CSV), summary.json, case.prm and log.txt; then commits it. Collective.
+  void write_case_folder(FlowState &state, const report::Summary &summary, report::CaseFolder &folder);
+
+  /// What run_flow_case returns for `summary`, written to `folder`.
+  RunResult result_of(const report::Summary &summary, const std::string &folder);
+} // namespace lentus::flow

@@ -1,0 +1,64 @@
+// One design number: what a user reads off a run (die pressure, torque, cavern
+// radius...), with its unit, a symbol, and room for how accurate it is.
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+namespace lentus::report
+{
+  /// What a number is about; the report and the results table group by it.
+  enum class Group
+  {
+    flow,    ///< flow rates, pressures, forces and torques on roles, speeds
+    die,     ///< developed flow in straight sections, entrance loss
+    vessel,  ///< impeller torque and power, dimensionless groups, dead zones, cavern
+    energy,  ///< power input and dissipation
+    regions  ///< areas, volumes, unyielded fractions
+  };
+
+  /// "flow", "die", "vessel", "energy", "regions".
+  const char *to_string(Group group);
+
+  /// How accurate a number is. Empty until an estimate is made (mesh error from a sequence of
+  /// meshes, regularization error from a second Papanastasiou exponent); `method` says how.
+  struct Accuracy
+  {
+    std::optional<double> mesh_error;           ///< same unit as the value
+    std::optional<double> regularization_error; ///< same unit as the value
+    std::optional<double> extrapolated;         ///< the value with the estimated errors removed
+    std::string           method = "not estimated";
+  };
+
+  struct DesignNumber
+  {
+    std::string name;   ///< unique within a run, e.g. "pressure drop inlet to outlet"
+    std::string symbol; ///< short, ASCII, e.g. "dp"
+    std::string unit;   ///< SI, e.g. "Pa", "m^3/s", "N m/m", "-"
+    double      value = 0.;
+    Group       group = Group::flow;
+    bool        key   = false; ///< one of the few numbers a user came for (shown first)
+    Accuracy    accuracy;
+  };
+
+  /// Appends numbers in order; a name given twice is a programming error (std::logic_error).
+  class DesignNumbers
+  {
+  public:
+    void add(DesignNumber number);
+    void add(const std::string &name, const std::string &symbol, double value, const std::string &unit, Group group,
+             bool key = false);
+    void append(const DesignNumbers &other);
+
+    const std::vector<DesignNumber> &all() const { return entries; }
+    const DesignNumber *find(const std::string &name) const;
+    /// The value of `name`; throws std::out_of_range if absent.
+    double value(const std::string &name) const;
+    /// Marks `name` as a key number if present.
+    void mark_key(const std::string &name);
+
+  private:
+    std::vector<DesignNumber> entries;
+  };
+} // namespace lentus::report

@@ -1,0 +1,44 @@
+// Everything a run reports, typed: the case, the status, the design numbers, the
+// numerics and the cautions. summary.json is this, serialized by to_json().
+#pragma once
+
+#include "solver/report/design_number.h"
+#include "solver/report/solve_history.h"
+
+#include <optional>
+#include <string>
+#include <vector>
+
+namespace lentus::report
+{
+  /// Wall time and memory of a run (the iteration figures are in the SolveHistory).
+  struct Resources
+  {
+    double       wall_seconds = 0.;
+    double       peak_memory_per_rank = 0.;  ///< [MiB], the largest over the ranks
+    double       peak_memory_all_ranks = 0.; ///< [MiB], the sum over the ranks
+    unsigned int ranks = 1;
+  };
+
+  struct Summary
+  {
+    std::string case_file;
+    bool        converged = false;
+    std::string reason; ///< why not converged; empty when converged
+    std::string velocity_components; ///< "x y", "r z" or "r z theta"
+    std::string viscosity_law;
+    double      yield_stress = 0.;   ///< [Pa] of the law at the case temperature
+    std::optional<double> dead_zone_fraction; ///< vessels that report dead zones
+    DesignNumbers         numbers;            ///< of the last iterate
+    std::uint64_t         cells = 0, unknowns = 0; ///< of the final mesh
+    SolveHistory          history;
+    Resources             resources;
+    std::vector<std::string> case_cautions; ///< beside the general caution (report::caution)
+  };
+
+  /// summary.json's text (nlohmann-json; see SUMMARY in DEVELOPERS.md for the fields).
+  std::string to_json(const Summary &summary);
+
+  /// The design numbers as aligned lines "  name   value unit" for the log and the terminal.
+  std::vector<std::string> design_number_lines(const DesignNumbers &numbers);
+} // namespace lentus::report
