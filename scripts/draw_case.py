@@ -39,6 +39,13 @@ INSTALL_HINT = ("pictures need Python 3 with matplotlib: run scripts/setup, or "
                 "apt-get install python3-matplotlib (or point LENTUS_PYTHON at a Python that has it)")
 
 
+# Design numbers drawn into the pictures, chosen by their symbol in summary.json: the developed
+# wall shear stresses of a die's sections (outer wall, or mandrel and outer wall of an annulus)
+# and the shear rates that mark the flow curve (true wall shear rates, the Metzner-Otto rate).
+WALL_STRESS_SYMBOLS = ("tau_w", "tau_w,i", "tau_w,o")
+SHEAR_RATE_SYMBOLS = ("gamma_w", "gamma_MO")
+
+
 class Case:
     """Everything the pictures need from the folder."""
 
@@ -64,6 +71,10 @@ class Case:
             return float(self.inputs[key])
         except (KeyError, ValueError):
             return default
+
+    def with_symbol(self, symbols):
+        """(name, entry) of every design number whose symbol is one of `symbols`, in summary.json's order."""
+        return [(name, entry) for name, entry in self.numbers.items() if entry.get("symbol") in symbols]
 
     def value(self, name):
         """The value of the design number called `name` (its exact name), or None."""
@@ -220,7 +231,7 @@ def picture_die_profiles(case, path):
         bottom.plot(fields.points[wall, axial], stress[wall], color="#D55E00", lw=1.6, marker=".", ms=3,
                     label="stress magnitude at the wall: |tau| = eta gamma_dot" if index == 0 else None)
     styles = ["--", ":", "-.", (0, (5, 1, 1, 1))]
-    for index, (name, entry) in enumerate(n for n in case.numbers.items() if "wall shear stress" in n[0]):
+    for index, (name, entry) in enumerate(case.with_symbol(WALL_STRESS_SYMBOLS)):
         if entry.get("value") is not None:
             bottom.axhline(float(entry["value"]), color="black", lw=1.0, ls=styles[index % len(styles)],
                            label="%s: %.4g %s" % (name, float(entry["value"]), entry.get("unit", "")))
@@ -276,7 +287,7 @@ def picture_flow_curve(case, path):
         if occurring:
             axes.axvspan(occurring[0], occurring[1], color="#E69F00", alpha=0.25,
                          label="shear rates in this case: %.3g to %.3g 1/s" % occurring)
-    rates = [n for n in case.numbers.items() if n[1].get("unit") == "1/s" and "apparent" not in n[0]]
+    rates = case.with_symbol(SHEAR_RATE_SYMBOLS)
     for index, (name, entry) in enumerate(rates[:4]):
         if entry.get("value") is not None and float(entry["value"]) > 0.:
             stress_axes.axvline(float(entry["value"]), color="black", lw=0.9, ls=["--", ":", "-.", "--"][index],
@@ -297,6 +308,11 @@ def picture_flow_curve(case, path):
     return caption
 
 
+def real(value):
+    """A number of summary.json as a float: null (not finite when written) becomes NaN."""
+    return float("nan") if value is None else float(value)
+
+
 def picture_convergence(case, path):
     import matplotlib.pyplot as pyplot
     if not case.solves:
@@ -312,17 +328,17 @@ def picture_convergence(case, path):
     for solve_number, solve in enumerate(case.solves):
         iterations = solve.get("iterations", [])
         xs = [index] + [index + k + 1 for k in range(len(iterations))]
-        ys = [solve["initial residual"]] + [iteration["residual"] for iteration in iterations]
+        ys = [real(solve["initial residual"])] + [real(iteration["residual"]) for iteration in iterations]
         top.semilogy(xs, ys, color="0.35", lw=1.0)
         for k, iteration in enumerate(iterations):
-            kind, residual, step = iteration["kind"], iteration["residual"], iteration["step"]
+            kind, residual, step = iteration["kind"], real(iteration["residual"]), real(iteration["step"])
             marker, face = markers.get(kind, ("^", "0.5"))
             label = None if kind in labelled else kind + " step"
             labelled.add(kind)
             top.semilogy(xs[k + 1], residual, marker=marker, mfc=face, mec="#0072B2", ls="none", label=label)
             bottom.plot(xs[k + 1], step, marker=marker, mfc=face, mec="#0072B2", ls="none")
         if relative is not None:
-            target = max(relative * solve["initial residual"], absolute)
+            target = max(relative * real(solve["initial residual"]), absolute)
             top.hlines(target, xs[0], xs[-1], color="#D55E00", lw=1.0, ls="--",
                        label="target (tolerances)" if solve_number == 0 else None)
         if len(case.solves) > 1:

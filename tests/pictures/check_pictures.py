@@ -128,9 +128,9 @@ def check_folder(folder, swirl_outline):
             fail("report.html lacks the numerics entry '%s'" % key)
     for table, records in (("meshes", numerics.get("meshes", [])), ("solves", numerics.get("solves", []))):
         match = re.search(r'<table class="%s">(.*?)</table>' % table, report, re.S)
-        shown = len(re.findall(r"<tr>", match.group(1))) - 1 if match else 0
-        if shown != len(records):
-            fail("report.html's %s table has %d rows, summary.json lists %d" % (table, shown, len(records)))
+        n_rows = len(re.findall(r"<tr>", match.group(1))) - 1 if match else 0
+        if n_rows != len(records):
+            fail("report.html's %s table has %d rows, summary.json lists %d" % (table, n_rows, len(records)))
     caution = summary["caution"]
     if "fail and hurt people" not in caution:
         fail("summary.json's caution is not the full one: %s" % caution)
