@@ -11,16 +11,16 @@ namespace lentus::flow
 {
   void log_start(FlowState &state)
   {
-    const input::FlowCase &flow = state.flow;
+    const input::FlowCase &flow = state.physics.flow;
     state.log.line("lentus " + std::string(version) + ": case " + flow.case_file + " on " +
-                   std::to_string(state.n_ranks) + " rank(s)");
+                   std::to_string(state.mesh.n_ranks) + " rank(s)");
     state.log.line("Fluid: " + flow.fluid.law_name + "; velocity components: " + velocity_components(flow.formulation) +
                    (flow.inertia ? ", with inertia" : ", creeping flow"));
   }
 
   void write_case_folder(FlowState &state, const report::Summary &summary, report::CaseFolder &folder)
   {
-    if (state.flow.write_fields)
+    if (state.physics.flow.write_fields)
       write_fields(state, folder.staging());
     const std::string exit_profile = exit_profile_csv(state);
     const std::string wall_profile = wall_profile_csv(state);
@@ -35,14 +35,14 @@ namespace lentus::flow
     state.log.line(std::string("Caution: ") + report::caution);
 
     folder.write("summary.json", report::to_json(summary));
-    folder.write("case.prm", state.flow.complete_text);
+    folder.write("case.prm", state.physics.flow.complete_text);
     folder.write("log.txt", state.log.text());
     if (!exit_profile.empty())
       folder.write("exit_profile.csv", exit_profile);
     if (!wall_profile.empty())
       folder.write("wall_profile.csv", wall_profile);
     folder.commit();
-    if (state.rank == 0)
+    if (state.mesh.rank == 0)
       std::printf("Results in %s\n", folder.path().c_str());
   }
 

@@ -19,16 +19,16 @@ namespace lentus::flow
 
   std::string exit_profile_csv(const FlowState &state)
   {
-    const auto roles = state.flow.geometry->boundary_roles();
+    const auto roles = state.physics.flow.geometry->boundary_roles();
     if (!roles.count("outlet"))
       return "";
     const types::boundary_id outlet = roles.at("outlet");
     // Nodes of the outlet faces: the face's support points of the first velocity component.
-    const Quadrature<1> nodes(state.fe.base_element(0).get_unit_face_support_points());
-    FEFaceValues<2>     face_values(state.fe, nodes, update_values | update_quadrature_points | update_normal_vectors);
-    std::vector<dealii::Vector<double>> values(nodes.size(), dealii::Vector<double>(state.n_velocity + 1));
+    const Quadrature<1> nodes(state.mesh.fe.base_element(0).get_unit_face_support_points());
+    FEFaceValues<2>     face_values(state.mesh.fe, nodes, update_values | update_quadrature_points | update_normal_vectors);
+    std::vector<dealii::Vector<double>> values(nodes.size(), dealii::Vector<double>(state.physics.n_velocity + 1));
     std::vector<std::array<double, 5>>  rows; // transverse coordinate, x, y, normal velocity, tangential velocity
-    for (const auto &cell : state.dof_handler.active_cell_iterators())
+    for (const auto &cell : state.mesh.dof_handler.active_cell_iterators())
       if (cell->is_locally_owned())
         for (const auto face_no : cell->face_indices())
           if (cell->face(face_no)->at_boundary() && cell->face(face_no)->boundary_id() == outlet)
@@ -45,15 +45,15 @@ namespace lentus::flow
                   rows.push_back(std::array<double, 5>{{x[t], x[0], x[1], normal, tangential}});
                 }
             }
-    const auto all = Utilities::MPI::gather(state.comm, rows, 0);
-    if (state.rank != 0)
+    const auto all = Utilities::MPI::gather(state.mesh.comm, rows, 0);
+    if (state.mesh.rank != 0)
       return "";
     std::vector<std::array<double, 5>> merged;
     for (const auto &part : all)
       merged.insert(merged.end(), part.begin(), part.end());
     std::sort(merged.begin(), merged.end());
     std::ostringstream csv;
-    csv << (is_axisymmetric(state.kind) ? "r [m],z [m]" : "x [m],y [m]")
+    csv << (is_axisymmetric(state.physics.kind) ? "r [m],z [m]" : "x [m],y [m]")
         << ",outflow velocity [m/s],tangential velocity [m/s]\n";
     csv.precision(10);
     for (std::size_t i = 0; i < merged.size(); ++i)
@@ -64,26 +64,26 @@ namespace lentus::flow
 
   std::string wall_profile_csv(const FlowState &state)
   {
-    const auto roles = state.flow.geometry->boundary_roles();
+    const auto roles = state.physics.flow.geometry->boundary_roles();
     if (!roles.count("outlet"))
       return "";
     // Walls: the roles with a no-slip condition, in the order of the case file.
     std::vector<std::string> walls;
-    for (const input::BoundaryCondition &bc : state.flow.conditions)
+    for (const input::BoundaryCondition &bc : state.physics.flow.conditions)
       if (bc.type == input::BoundaryCondition::Type::no_slip)
         walls.push_back(bc.role);
     if (walls.empty())
       return "";
     const types::boundary_id outlet = roles.at("outlet");
-    const QGauss<1>          quadrature(state.fe.degree + 1);
-    FEFaceValues<2>          face_values(state.fe, quadrature,
+    const QGauss<1>          quadrature(state.mesh.fe.degree + 1);
+    FEFaceValues<2>          face_values(state.mesh.fe, quadrature,
                                          update_values | update_gradients | update_quadrature_points |
                                            update_normal_vectors);
-    std::vector<dealii::Vector<double>>    values(quadrature.size(), dealii::Vector<double>(state.n_velocity + 1));
-    std::vector<std::vector<Tensor<1, 2>>> gradients(quadrature.size(), std::vector<Tensor<1, 2>>(state.n_velocity + 1));
+    std::vector<dealii::Vector<double>>    values(quadrature.size(), dealii::Vector<double>(state.physics.n_velocity + 1));
+    std::vector<std::vector<Tensor<1, 2>>> gradients(quadrature.size(), std::vector<Tensor<1, 2>>(state.physics.n_velocity + 1));
     // The flow direction is the outlet's normal: the axis along which the rows are ordered.
     int axial = -1;
-    for (const auto &cell : state.dof_handler.active_cell_iterators())
+    for (const auto &cell : state.mesh.dof_handler.active_cell_iterators())
       if (cell->is_locally_owned())
         for (const auto face_no : cell->face_indices())
           if (cell->face(face_no)->at_boundary() && cell->face(face_no)->boundary_id() == outlet)
@@ -91,7 +91,7 @@ namespace lentus::flow
               const Tensor<1, 2> edge = cell->face(face_no)->vertex(1) - cell->face(face_no)->vertex(0);
               axial                   = std::abs(edge[0]) < std::abs(edge[1]) ? 0 : 1;
             }
-    axial = Utilities::MPI::max(axial, state.comm);
+    axial = Utilities::MPI::max(axial, state.mesh.comm);
     if (axial < 0)
       return "";
     // Rows: wall index, axial coordinate, x, y, shear rate, stress.
@@ -99,7 +99,7 @@ namespace lentus::flow
     for (std::size_t w = 0; w < walls.size(); ++w)
       {
         const types::boundary_id id = roles.at(walls[w]);
-        for (const auto &cell : state.dof_handler.active_cell_iterators())
+        for (const auto &cell : state.mesh.dof_handler.active_cell_iterators())
           if (cell->is_locally_owned())
             for (const auto face_no : cell->face_indices())
               if (cell->face(face_no)->at_boundary() && cell->face(face_no)->boundary_id() == id)
@@ -110,22 +110,22 @@ namespace lentus::flow
                   for (unsigned int q = 0; q < quadrature.size(); ++q)
                     {
                       const Point<2>    &x = face_values.quadrature_point(q);
-                      const Kinematics   u = kinematics(state.kind, x, &values[q][0], gradients[q].data());
+                      const Kinematics   u = kinematics(state.physics.kind, x, &values[q][0], gradients[q].data());
                       const double       rate = shear_rate(u.L);
                       rows.push_back({{static_cast<double>(w), x[axial], x[0], x[1], rate,
-                                       state.law->evaluate(rate).value * rate}});
+                                       state.physics.law->evaluate(rate).value * rate}});
                     }
                 }
       }
-    const auto all = Utilities::MPI::gather(state.comm, rows, 0);
-    if (state.rank != 0)
+    const auto all = Utilities::MPI::gather(state.mesh.comm, rows, 0);
+    if (state.mesh.rank != 0)
       return "";
     std::vector<std::array<double, 6>> merged;
     for (const auto &part : all)
       merged.insert(merged.end(), part.begin(), part.end());
     std::sort(merged.begin(), merged.end());
     std::ostringstream csv;
-    csv << "role," << (is_axisymmetric(state.kind) ? "r [m],z [m]" : "x [m],y [m]")
+    csv << "role," << (is_axisymmetric(state.physics.kind) ? "r [m],z [m]" : "x [m],y [m]")
         << ",wall shear rate [1/s],wall shear stress [Pa]\n";
     csv.precision(10);
     for (const auto &row : merged)

@@ -32,22 +32,22 @@ namespace lentus::flow
       void evaluate_vector_field(const DataPostprocessorInputs::Vector<2> &inputs,
                                  std::vector<dealii::Vector<double>> &computed) const override
       {
-        const double tau_y = state.law->yield_stress();
+        const double tau_y = state.physics.law->yield_stress();
         for (unsigned int q = 0; q < inputs.solution_values.size(); ++q)
           {
             double       values[3];
             Tensor<1, 2> gradients[3];
-            for (unsigned int c = 0; c < state.n_velocity; ++c)
+            for (unsigned int c = 0; c < state.physics.n_velocity; ++c)
               {
                 values[c]    = inputs.solution_values[q][c];
                 gradients[c] = inputs.solution_gradients[q][c];
               }
             const Point<2> &x = inputs.evaluation_points[q];
             // On the axis r = 0 the hoop terms are limits; evaluate just off it.
-            const Point<2>     at(is_axisymmetric(state.kind) ? std::max(x[0], 1e-12) : x[0], x[1]);
-            const Kinematics   u         = kinematics(state.kind, at, values, gradients);
+            const Point<2>     at(is_axisymmetric(state.physics.kind) ? std::max(x[0], 1e-12) : x[0], x[1]);
+            const Kinematics   u         = kinematics(state.physics.kind, at, values, gradients);
             const double       gamma_dot = shear_rate(u.L);
-            const double       eta       = state.law->evaluate(gamma_dot).value;
+            const double       eta       = state.physics.law->evaluate(gamma_dot).value;
             computed[q](0)               = gamma_dot;
             computed[q](1)               = eta;
             computed[q](2)               = eta * gamma_dot;
@@ -82,25 +82,25 @@ namespace lentus::flow
         names.emplace_back("velocity");
         interpretation.push_back(DataComponentInterpretation::component_is_part_of_vector);
       }
-    if (state.n_velocity == 3)
+    if (state.physics.n_velocity == 3)
       {
         names.emplace_back("swirl_velocity");
         interpretation.push_back(DataComponentInterpretation::component_is_scalar);
       }
     names.emplace_back("pressure");
     interpretation.push_back(DataComponentInterpretation::component_is_scalar);
-    data_out.attach_dof_handler(state.dof_handler);
+    data_out.attach_dof_handler(state.mesh.dof_handler);
     data_out.add_data_vector(state.solution, names, DataOut<2>::type_dof_data, interpretation);
     const DerivedFields derived(state);
     data_out.add_data_vector(state.solution, derived);
-    dealii::Vector<float> partition(state.triangulation.n_active_cells());
-    for (const auto &cell : state.triangulation.active_cell_iterators())
+    dealii::Vector<float> partition(state.mesh.triangulation.n_active_cells());
+    for (const auto &cell : state.mesh.triangulation.active_cell_iterators())
       if (cell->is_locally_owned())
-        partition(cell->active_cell_index()) = static_cast<float>(state.rank);
+        partition(cell->active_cell_index()) = static_cast<float>(state.mesh.rank);
     data_out.add_data_vector(partition, "partition");
-    data_out.build_patches(state.fe.degree);
-    const std::string record = data_out.write_vtu_with_pvtu_record(folder + "/", "fields", 0, state.comm, 2, 0);
-    if (state.rank == 0)
+    data_out.build_patches(state.mesh.fe.degree);
+    const std::string record = data_out.write_vtu_with_pvtu_record(folder + "/", "fields", 0, state.mesh.comm, 2, 0);
+    if (state.mesh.rank == 0)
       {
         std::ofstream pvd(folder + "/fields.pvd");
         DataOutBase::write_pvd_record(pvd, {{0., record}});

@@ -32,35 +32,43 @@ namespace lentus::flow
 
   namespace
   {
-    double assemble_into(FlowState &state,
+    double assemble_into(const Physics &physics,
+                         const Discretization &mesh,
                          const Vector &evaluation_point,
                          const Linearization linearization,
+                         LinearSystem &system,
                          Vector *reactions);
   }
 
-  double assemble(FlowState &state, const Vector &evaluation_point, const Linearization linearization)
+  double assemble(const Physics &physics, const Discretization &mesh, const Vector &evaluation_point,
+                  const Linearization linearization, LinearSystem &system)
   {
-    return assemble_into(state, evaluation_point, linearization, nullptr);
+    return assemble_into(physics, mesh, evaluation_point, linearization, system, nullptr);
   }
 
-  void assemble_reactions(FlowState &state, const Vector &evaluation_point, Vector &reactions)
+  void assemble_reactions(const Physics &physics, const Discretization &mesh, const Vector &evaluation_point,
+                          Vector &reactions)
   {
-    reactions.reinit(state.owned, state.comm);
-    assemble_into(state, evaluation_point, Linearization::none, &reactions);
+    reactions.reinit(mesh.owned, mesh.comm);
+    LinearSystem residual_only;
+    residual_only.residual.reinit(mesh.owned, mesh.comm);
+    assemble_into(physics, mesh, evaluation_point, Linearization::none, residual_only, &reactions);
   }
 
   namespace
   {
-  double assemble_into(FlowState &state,
+  double assemble_into(const Physics &physics,
+                       const Discretization &mesh,
                        const Vector &evaluation_point,
                        const Linearization linearization,
+                       LinearSystem &system,
                        Vector *reactions)
   {
     const bool             with_matrix = linearization != Linearization::none;
     const bool             newton      = linearization == Linearization::newton;
-    const FESystem<2>     &fe          = state.fe;
-    const unsigned int     n_velocity  = state.n_velocity;
-    const FormulationKind  kind        = state.kind;
+    const FESystem<2>     &fe          = mesh.fe;
+    const unsigned int     n_velocity  = physics.n_velocity;
+    const FormulationKind  kind        = physics.kind;
     const QGauss<2>        quadrature(fe.degree + 1);
     const QGauss<1>        face_quadrature(fe.degree + 1);
     FEValues<2>            fe_values(fe, quadrature,
@@ -87,27 +95,27 @@ namespace lentus::flow
     std::vector<types::global_dof_index> pressure_indices(n_pressure);
 
     std::map<types::boundary_id, double> set_pressure;
-    for (const input::BoundaryCondition &bc : state.flow.conditions)
+    for (const input::BoundaryCondition &bc : physics.flow.conditions)
       if (bc.type == input::BoundaryCondition::Type::pressure)
-        set_pressure[state.flow.geometry->id_of_role(bc.role)] = bc.pressure;
+        set_pressure[physics.flow.geometry->id_of_role(bc.role)] = bc.pressure;
 
     // Inertia only when switched on (a density may be present for gravity alone).
-    const double rho         = state.flow.inertia ? state.density : 0.;
-    const double rho_gravity = state.density;
-    const double frame_omega = (state.flow.impeller_frame && kind == FormulationKind::planar) ? state.flow.impeller_omega() : 0.;
+    const double rho         = physics.flow.inertia ? physics.density : 0.;
+    const double rho_gravity = physics.density;
+    const double frame_omega = (physics.flow.impeller_frame && kind == FormulationKind::planar) ? physics.flow.impeller_omega() : 0.;
     Tensor<1, 3> gravity;
-    gravity[0] = state.flow.gravity[0];
-    gravity[2] = state.flow.gravity[1];
+    gravity[0] = physics.flow.gravity[0];
+    gravity[2] = physics.flow.gravity[1];
 
     const AffineConstraints<double> no_constraints;
     if (with_matrix)
       {
-        state.system_matrix = 0.;
-        state.pressure_mass = 0.;
+        system.system_matrix = 0.;
+        system.pressure_mass = 0.;
       }
-    state.residual = 0.;
+    system.residual = 0.;
 
-    for (const auto &cell : state.dof_handler.active_cell_iterators())
+    for (const auto &cell : mesh.dof_handler.active_cell_iterators())
       {
         if (!cell->is_locally_owned())
           continue;
@@ -127,7 +135,7 @@ namespace lentus::flow
             const Kinematics   u = kinematics(kind, x, &values[q][0], gradients[q].data());
             const Tensor<2, 3> D = strain_rate(u.L);
             const double       gamma_dot = std::sqrt(2. * contract(D, D));
-            const auto         eta       = state.law->evaluate(gamma_dot);
+            const auto         eta       = physics.law->evaluate(gamma_dot);
             const double       p         = values[q][n_velocity];
             const Tensor<1, 3> convection = u.L * u.U;
             // (4a): 2 Omega e_z x u - Omega^2 r, with e_z x u = (-u_y, u_x) (mesh components 0 and 2).
@@ -224,8 +232,8 @@ namespace lentus::flow
         cell_residual *= -1.;
         if (with_matrix)
           {
-            state.zero_constraints.distribute_local_to_global(cell_matrix, cell_residual, dof_indices,
-                                                              state.system_matrix, state.residual);
+            mesh.zero_constraints.distribute_local_to_global(cell_matrix, cell_residual, dof_indices,
+                                                              system.system_matrix, system.residual);
             // Only the pressure block of cell_mass is non-zero; the matrix has the pressure pattern.
             for (unsigned int i = 0; i < n_pressure; ++i)
               {
@@ -233,24 +241,24 @@ namespace lentus::flow
                 for (unsigned int j = 0; j < n_pressure; ++j)
                   pressure_mass(i, j) = cell_mass(pressure_dofs[i], pressure_dofs[j]);
               }
-            state.zero_constraints.distribute_local_to_global(pressure_mass, pressure_indices, state.pressure_mass);
+            mesh.zero_constraints.distribute_local_to_global(pressure_mass, pressure_indices, system.pressure_mass);
           }
         else
-          state.zero_constraints.distribute_local_to_global(cell_residual, dof_indices, state.residual);
+          mesh.zero_constraints.distribute_local_to_global(cell_residual, dof_indices, system.residual);
       }
 
     if (with_matrix)
       {
-        state.system_matrix.compress(VectorOperation::add);
-        state.pressure_mass.compress(VectorOperation::add);
+        system.system_matrix.compress(VectorOperation::add);
+        system.pressure_mass.compress(VectorOperation::add);
       }
     if (reactions)
       {
         reactions->compress(VectorOperation::add);
         return reactions->l2_norm();
       }
-    state.residual.compress(VectorOperation::add);
-    return state.residual.l2_norm();
+    system.residual.compress(VectorOperation::add);
+    return system.residual.l2_norm();
   }
   } // namespace
 } // namespace lentus::flow

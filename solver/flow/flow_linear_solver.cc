@@ -25,27 +25,28 @@ namespace lentus::flow
     }
 
     /// Owned indices of one field as a PETSc index set.
-    IS field_index_set(const FlowState &state, const ComponentMask &mask)
+    IS field_index_set(const Discretization &mesh, const ComponentMask &mask)
     {
-      const IndexSet            field = DoFTools::extract_dofs(state.dof_handler, mask) & state.owned;
+      const IndexSet            field = DoFTools::extract_dofs(mesh.dof_handler, mask) & mesh.owned;
       std::vector<PetscInt>     indices;
       for (const auto index : field)
         indices.push_back(static_cast<PetscInt>(index));
       IS is;
-      check(ISCreateGeneral(state.comm, static_cast<PetscInt>(indices.size()), indices.data(), PETSC_COPY_VALUES, &is),
+      check(ISCreateGeneral(mesh.comm, static_cast<PetscInt>(indices.size()), indices.data(), PETSC_COPY_VALUES, &is),
             "ISCreateGeneral");
       return is;
     }
   } // namespace
 
-  unsigned int solve_linear(FlowState &state, Vector &update, const bool direct, const double relative_tolerance)
+  unsigned int solve_linear(const Physics &physics, const Discretization &mesh, LinearSystem &system,
+                            Vector &update, const bool direct, const double relative_tolerance)
   {
     KSP ksp;
     PC  pc;
-    check(KSPCreate(state.comm, &ksp), "KSPCreate");
+    check(KSPCreate(mesh.comm, &ksp), "KSPCreate");
     // The prefix must precede the field split, whose sub-solvers inherit it.
     check(KSPSetOptionsPrefix(ksp, "lentus_"), "KSPSetOptionsPrefix");
-    check(KSPSetOperators(ksp, state.system_matrix.petsc_matrix(), state.system_matrix.petsc_matrix()),
+    check(KSPSetOperators(ksp, system.system_matrix.petsc_matrix(), system.system_matrix.petsc_matrix()),
           "KSPSetOperators");
     check(KSPGetPC(ksp, &pc), "KSPGetPC");
     IS  velocity_is = nullptr, pressure_is = nullptr;
@@ -59,15 +60,15 @@ namespace lentus::flow
     else
       {
         const FEValuesExtractors::Vector velocity(0);
-        const FEValuesExtractors::Scalar pressure(state.n_velocity);
-        ComponentMask                    velocity_mask(state.n_velocity + 1, false);
-        for (unsigned int c = 0; c < state.n_velocity; ++c)
+        const FEValuesExtractors::Scalar pressure(physics.n_velocity);
+        ComponentMask                    velocity_mask(physics.n_velocity + 1, false);
+        for (unsigned int c = 0; c < physics.n_velocity; ++c)
           velocity_mask.set(c, true);
-        velocity_is = field_index_set(state, velocity_mask);
+        velocity_is = field_index_set(mesh, velocity_mask);
         // Node-wise numbering (renumber_node_wise): the velocity block is a system of n_velocity unknowns per node.
-        check(ISSetBlockSize(velocity_is, static_cast<PetscInt>(state.n_velocity)), "ISSetBlockSize");
-        pressure_is = field_index_set(state, state.fe.component_mask(pressure));
-        check(MatCreateSubMatrix(state.pressure_mass.petsc_matrix(), pressure_is, pressure_is, MAT_INITIAL_MATRIX,
+        check(ISSetBlockSize(velocity_is, static_cast<PetscInt>(physics.n_velocity)), "ISSetBlockSize");
+        pressure_is = field_index_set(mesh, mesh.fe.component_mask(pressure));
+        check(MatCreateSubMatrix(system.pressure_mass.petsc_matrix(), pressure_is, pressure_is, MAT_INITIAL_MATRIX,
                                  &schur_preconditioner),
               "MatCreateSubMatrix");
         // S = -B A^-1 B^T is negative: precondition with -M_p(1/eta).
@@ -97,8 +98,8 @@ namespace lentus::flow
         check(KSPSetFromOptions(ksp), "KSPSetFromOptions");
       }
 
-    Vector owned_update(state.owned, state.comm);
-    const PetscErrorCode solved = KSPSolve(ksp, static_cast<const Vec &>(state.residual), static_cast<const Vec &>(owned_update));
+    Vector owned_update(mesh.owned, mesh.comm);
+    const PetscErrorCode solved = KSPSolve(ksp, static_cast<const Vec &>(system.residual), static_cast<const Vec &>(owned_update));
     KSPConvergedReason reason;
     PetscInt           iterations = 0;
     KSPGetConvergedReason(ksp, &reason);
@@ -114,7 +115,7 @@ namespace lentus::flow
       throw NoConvergence(std::string(direct ? "the direct solver (MUMPS)" : "FGMRES") +
                           " failed on the linearized system (PETSc reason " + std::to_string(int(reason)) +
                           "); the Jacobian may be singular: check that every boundary has a condition");
-    state.zero_constraints.distribute(owned_update);
+    mesh.zero_constraints.distribute(owned_update);
     update = owned_update;
     return direct ? 1u : static_cast<unsigned int>(iterations);
   }

@@ -46,18 +46,19 @@ namespace lentus::flow
     /// Newton steps), so that continuation can take over early.
     /// `reference_residual` > 0 replaces the first residual as the measure of the relative tolerance
     /// (a start interpolated from a coarser mesh is already closer than the state at rest).
-    bool iterate(FlowState &state, const bool direct, SolveOutcome &outcome, const std::string &label, std::string &why,
+    bool iterate(FlowState &state, const Physics &physics, const bool direct, SolveOutcome &outcome,
+                 const std::string &label, std::string &why,
                  const bool give_up_when_stalled = false, const unsigned int max_picard_steps = ~0u,
                  const double reference_residual = 0.)
     {
       const unsigned int  stall_limit = 4;
       std::vector<double> newton_residuals; // of the current run of Newton steps, the one before them first
-      const input::FlowCase &flow = state.flow;
-      Vector                 current(state.owned, state.comm), update(state.owned, state.comm),
-        trial(state.owned, state.comm);
-      Vector ghosted(state.owned, state.relevant, state.comm);
+      const input::FlowCase &flow = state.physics.flow;
+      Vector                 current(state.mesh.owned, state.mesh.comm), update(state.mesh.owned, state.mesh.comm),
+        trial(state.mesh.owned, state.mesh.comm);
+      Vector ghosted(state.mesh.owned, state.mesh.relevant, state.mesh.comm);
       current                 = state.solution;
-      const double first      = assemble(state, state.solution, Linearization::none);
+      const double first      = assemble(physics, state.mesh, state.solution, Linearization::none, state.system);
       double       residual   = first;
       unsigned int picard     = 0;
       double       previous   = residual;
@@ -81,7 +82,7 @@ namespace lentus::flow
                                                                                       Linearization::newton;
           if (linearization == Linearization::picard)
             ++picard;
-          assemble(state, state.solution, linearization);
+          assemble(physics, state.mesh, state.solution, linearization, state.system);
           // Inexact Newton (Eisenstat & Walker 1996, choice 2): solve each linear system only as
           // accurately as the nonlinear residual warrants, but well below the final target.
           const double forcing = linearization == Linearization::picard ?
@@ -91,7 +92,7 @@ namespace lentus::flow
           unsigned int linear_iterations = 0;
           try
             {
-              linear_iterations = solve_linear(state, update, direct, forcing);
+              linear_iterations = solve_linear(physics, state.mesh, state.system, update, direct, forcing);
             }
           catch (const NoConvergence &error)
             {
@@ -106,9 +107,9 @@ namespace lentus::flow
             {
               trial = current;
               trial.add(step, update);
-              state.nonzero_constraints.distribute(trial);
+              state.mesh.nonzero_constraints.distribute(trial);
               ghosted        = trial;
-              trial_residual = assemble(state, ghosted, Linearization::none);
+              trial_residual = assemble(physics, state.mesh, ghosted, Linearization::none, state.system);
               if (std::isfinite(trial_residual) && trial_residual < (1. - 1e-4 * step) * residual)
                 {
                   accepted = true;
@@ -121,9 +122,9 @@ namespace lentus::flow
               step  = 1.;
               trial = current;
               trial.add(1., update);
-              state.nonzero_constraints.distribute(trial);
+              state.mesh.nonzero_constraints.distribute(trial);
               ghosted        = trial;
-              trial_residual = assemble(state, ghosted, Linearization::none);
+              trial_residual = assemble(physics, state.mesh, ghosted, Linearization::none, state.system);
               accepted       = std::isfinite(trial_residual);
             }
           if (!accepted)
@@ -168,9 +169,9 @@ namespace lentus::flow
     /// The linear solver of Linear solver/Type on the current mesh ("automatic": by size).
     bool use_direct(const FlowState &state)
     {
-      const input::FlowCase &flow = state.flow;
+      const input::FlowCase &flow = state.physics.flow;
       return flow.linear_solver == "direct" ||
-             (flow.linear_solver == "automatic" && state.dof_handler.n_dofs() <= flow.direct_limit);
+             (flow.linear_solver == "automatic" && state.mesh.dof_handler.n_dofs() <= flow.direct_limit);
     }
 
     std::string linear_solver_name(const bool direct)
@@ -181,17 +182,17 @@ namespace lentus::flow
     /// Starts the history's record of the current mesh.
     void record_mesh(FlowState &state, SolveOutcome &outcome)
     {
-      outcome.history.begin_mesh(state.triangulation.n_global_active_cells(), state.dof_handler.n_dofs(),
+      outcome.history.begin_mesh(state.mesh.triangulation.n_global_active_cells(), state.mesh.dof_handler.n_dofs(),
                                  linear_solver_name(use_direct(state)));
     }
   } // namespace
 
   void solve_nonlinear(FlowState &state, SolveOutcome &outcome)
   {
-    const input::FlowCase &flow = state.flow;
+    const input::FlowCase &flow = state.physics.flow;
     outcome.converged           = false;
     outcome.reason.clear();
-    const auto             n_dofs = state.dof_handler.n_dofs();
+    const auto             n_dofs = state.mesh.dof_handler.n_dofs();
     const bool             direct = use_direct(state);
     state.log.line("Nonlinear solve: " + std::to_string(n_dofs) + " unknowns, linear solver " +
                    linear_solver_name(direct));
@@ -201,7 +202,7 @@ namespace lentus::flow
     // The direct attempt may crawl for a while and still converge sooner than continuation would
     // (Bingham cavity, Bn = 20, level 5: 34 Newton steps, against 46 when it gives up early), so it
     // is not cut short.
-    if (iterate(state, direct, outcome, "direct solve", why))
+    if (iterate(state, state.physics, direct, outcome, "direct solve", why))
       {
         outcome.converged = true;
         return;
@@ -214,7 +215,7 @@ namespace lentus::flow
     const input::Fluid &fluid = flow.fluid;
     std::string         key;
     std::vector<double> path;
-    const double        full_density = state.density;
+    const double        full_density = state.physics.density;
     if (full_density > 0. && flow.inertia)
       {
         key = "Density (Reynolds number)";
@@ -244,10 +245,12 @@ namespace lentus::flow
     initial_solution(state);
     for (const double value : path)
       {
+        // The softened problem of this step; the case's own physics stays as it is.
+        Physics softened = state.physics;
         if (key.rfind("Density", 0) == 0)
-          state.density = value;
+          softened.density = value;
         else
-          state.law = law_with(fluid, key, value);
+          softened.law = law_with(fluid, key, value);
         const std::string label = key + " = " + rheology::format_short(value);
         outcome.history.add_continuation_step(label);
         state.log.line(" " + label);
@@ -256,23 +259,19 @@ namespace lentus::flow
         // The retry starts again from the previous step's solution, with the usual Picard start.
         const unsigned int picard_steps = value == path.front() ? 2u : 0u;
         const Vector       start        = state.solution;
-        bool               done         = iterate(state, direct, outcome, label, why, true, picard_steps);
+        bool               done         = iterate(state, softened, direct, outcome, label, why, true, picard_steps);
         if (!done)
           {
             state.log.line("  Newton from the previous step failed (" + why + "); again with Picard steps first");
             state.solution = start;
-            done           = iterate(state, direct, outcome, label + " (retry with Picard steps)", why);
+            done           = iterate(state, softened, direct, outcome, label + " (retry with Picard steps)", why);
           }
         if (!done)
           {
-            state.law     = fluid.law;
-            state.density = full_density;
             outcome.reason = "continuation in " + key + " failed at " + rheology::format_short(value) + ": " + why;
             return;
           }
       }
-    state.density    = full_density;
-    state.law         = fluid.law;
     outcome.converged = true;
   }
 
@@ -280,10 +279,10 @@ namespace lentus::flow
   {
     void log_mesh(FlowState &state, const std::string &stage)
     {
-      const input::FlowCase &flow = state.flow;
+      const input::FlowCase &flow = state.physics.flow;
       state.log.line(stage + (stage.empty() ? "Mesh: " : "mesh: ") +
-                     std::to_string(state.triangulation.n_global_active_cells()) + " cells, " +
-                     std::to_string(state.dof_handler.n_dofs()) + " unknowns (Taylor-Hood Q" +
+                     std::to_string(state.mesh.triangulation.n_global_active_cells()) + " cells, " +
+                     std::to_string(state.mesh.dof_handler.n_dofs()) + " unknowns (Taylor-Hood Q" +
                      std::to_string(flow.velocity_degree) + "-Q" + std::to_string(flow.velocity_degree - 1) + ")");
     }
 
@@ -298,10 +297,10 @@ namespace lentus::flow
       // The tolerance stays relative to the residual of the state at rest, as on a cold start.
       const Vector start = state.solution;
       initial_solution(state);
-      const double at_rest = assemble(state, state.solution, Linearization::none);
+      const double at_rest = assemble(state.physics, state.mesh, state.solution, Linearization::none, state.system);
       state.solution       = start;
       std::string why;
-      if (iterate(state, direct, outcome, "from the coarser mesh", why, false, ~0u, at_rest))
+      if (iterate(state, state.physics, direct, outcome, "from the coarser mesh", why, false, ~0u, at_rest))
         return true;
       outcome.reason = why;
       return false;
@@ -326,18 +325,18 @@ namespace lentus::flow
 
   SolveOutcome solve_with_mesh_sequencing(FlowState &state)
   {
-    const input::FlowCase &flow = state.flow;
+    const input::FlowCase &flow = state.physics.flow;
     const bool   automatic = flow.mesh_sequencing < 0;
     unsigned int levels    = automatic ? std::min(2u, flow.refinement) :
                                          static_cast<unsigned int>(flow.mesh_sequencing);
     create_mesh(state, flow.refinement - levels);
     if (automatic && levels > 0)
       {
-        state.dof_handler.distribute_dofs(state.fe); // to count the unknowns
+        state.mesh.dof_handler.distribute_dofs(state.mesh.fe); // to count the unknowns
         const unsigned int chosen = automatic_coarser_levels(
-          static_cast<double>(state.dof_handler.n_dofs()) * std::pow(4., levels), flow.refinement);
+          static_cast<double>(state.mesh.dof_handler.n_dofs()) * std::pow(4., levels), flow.refinement);
         if (chosen < levels)
-          state.triangulation.refine_global(levels - chosen);
+          state.mesh.triangulation.refine_global(levels - chosen);
         else if (chosen > levels)
           create_mesh(state, flow.refinement - chosen);
         levels = chosen;

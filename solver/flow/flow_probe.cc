@@ -17,16 +17,16 @@ namespace lentus::flow
 
   std::vector<double> FlowRun::values_at(const Point<2> &x) const
   {
-    const unsigned int  n_components = state->n_velocity + 1;
+    const unsigned int  n_components = state->physics.n_velocity + 1;
     std::vector<double> sums(n_components + 1, 0.); // values, then the number of ranks that found x
     const MappingQ1<2>  mapping;
     try
       {
-        const auto found = GridTools::find_active_cell_around_point(mapping, state->dof_handler, x);
+        const auto found = GridTools::find_active_cell_around_point(mapping, state->mesh.dof_handler, x);
         if (found.first->is_locally_owned())
           {
             const Quadrature<2> at_point(GeometryInfo<2>::project_to_unit_cell(found.second));
-            FEValues<2>         fe_values(mapping, state->fe, at_point, update_values);
+            FEValues<2>         fe_values(mapping, state->mesh.fe, at_point, update_values);
             fe_values.reinit(found.first);
             std::vector<dealii::Vector<double>> values(1, dealii::Vector<double>(n_components));
             fe_values.get_function_values(state->solution, values);
@@ -39,7 +39,7 @@ namespace lentus::flow
       {
         // x is not in a cell this rank knows; another rank has it.
       }
-    Utilities::MPI::sum(ArrayView<const double>(sums), state->comm, ArrayView<double>(sums));
+    Utilities::MPI::sum(ArrayView<const double>(sums), state->mesh.comm, ArrayView<double>(sums));
     if (sums[n_components] < 1.)
       throw std::out_of_range("point outside the flow domain");
     std::vector<double> values(n_components);
@@ -50,11 +50,11 @@ namespace lentus::flow
 
   double FlowRun::velocity_error(const std::function<Tensor<1, 2>(const Point<2> &)> &exact) const
   {
-    const QGauss<2> quadrature(state->fe.degree + 2);
-    FEValues<2>     fe_values(state->fe, quadrature, update_values | update_quadrature_points | update_JxW_values);
-    std::vector<dealii::Vector<double>> values(quadrature.size(), dealii::Vector<double>(state->n_velocity + 1));
+    const QGauss<2> quadrature(state->mesh.fe.degree + 2);
+    FEValues<2>     fe_values(state->mesh.fe, quadrature, update_values | update_quadrature_points | update_JxW_values);
+    std::vector<dealii::Vector<double>> values(quadrature.size(), dealii::Vector<double>(state->physics.n_velocity + 1));
     double                              sum = 0.;
-    for (const auto &cell : state->dof_handler.active_cell_iterators())
+    for (const auto &cell : state->mesh.dof_handler.active_cell_iterators())
       if (cell->is_locally_owned())
         {
           fe_values.reinit(cell);
@@ -63,11 +63,11 @@ namespace lentus::flow
             {
               const Point<2>     &x = fe_values.quadrature_point(q);
               const Tensor<1, 2> u = exact(x);
-              const double       w = volume_weight(state->kind, x) * fe_values.JxW(q);
+              const double       w = volume_weight(state->physics.kind, x) * fe_values.JxW(q);
               for (unsigned int c = 0; c < 2; ++c)
                 sum += std::pow(values[q][c] - u[c], 2) * w;
             }
         }
-    return std::sqrt(Utilities::MPI::sum(sum, state->comm));
+    return std::sqrt(Utilities::MPI::sum(sum, state->mesh.comm));
   }
 } // namespace lentus::flow

@@ -27,23 +27,30 @@ namespace lentus::flow
       std::cout << text << std::endl;
   }
 
-  FlowState::FlowState(const input::FlowCase &flow_case, MPI_Comm communicator)
+  Physics::Physics(const input::FlowCase &flow_case)
     : flow(flow_case)
-    , comm(communicator)
-    , rank(Utilities::MPI::this_mpi_process(communicator))
-    , n_ranks(Utilities::MPI::n_mpi_processes(communicator))
     , kind(flow_case.formulation)
     , n_velocity(n_velocity_components(flow_case.formulation))
+    , law(flow_case.fluid.law)
+    , density(flow_case.inertia || flow_case.gravity[0] != 0. || flow_case.gravity[1] != 0. ? flow_case.fluid.density :
+                                                                                             0.)
+  {}
+
+  Discretization::Discretization(const input::FlowCase &flow_case, MPI_Comm communicator)
+    : comm(communicator)
+    , rank(Utilities::MPI::this_mpi_process(communicator))
+    , n_ranks(Utilities::MPI::n_mpi_processes(communicator))
     , triangulation(communicator)
     , fe(FE_Q<2>(flow_case.velocity_degree), n_velocity_components(flow_case.formulation),
          FE_Q<2>(flow_case.velocity_degree - 1), 1)
     , dof_handler(triangulation)
-    , law(flow_case.fluid.law)
+  {}
+
+  FlowState::FlowState(const input::FlowCase &flow_case, MPI_Comm communicator)
+    : physics(flow_case)
+    , mesh(flow_case, communicator)
     , log(Utilities::MPI::this_mpi_process(communicator) == 0)
-  {
-    if (flow.inertia || flow.gravity[0] != 0. || flow.gravity[1] != 0.)
-      density = flow.fluid.density;
-  }
+  {}
 
   namespace
   {
@@ -108,7 +115,7 @@ namespace lentus::flow
     {
       // Ranks without faces of the role keep values that lose every max/min reduction.
       double axis = -1., sign = -HUGE_VAL, low = HUGE_VAL, high = -HUGE_VAL, position = -HUGE_VAL;
-      for (const auto &cell : state.triangulation.active_cell_iterators())
+      for (const auto &cell : state.mesh.triangulation.active_cell_iterators())
         if (cell->is_locally_owned())
           for (const auto face_no : cell->face_indices())
             if (cell->face(face_no)->at_boundary() && cell->face(face_no)->boundary_id() == id)
@@ -130,28 +137,28 @@ namespace lentus::flow
                     high = std::max(high, face->vertex(v)[1 - face_axis]);
                   }
               }
-      return {static_cast<int>(Utilities::MPI::max(axis, state.comm)), Utilities::MPI::max(sign, state.comm),
-              Utilities::MPI::min(low, state.comm), Utilities::MPI::max(high, state.comm),
-              Utilities::MPI::max(position, state.comm)};
+      return {static_cast<int>(Utilities::MPI::max(axis, state.mesh.comm)), Utilities::MPI::max(sign, state.mesh.comm),
+              Utilities::MPI::min(low, state.mesh.comm), Utilities::MPI::max(high, state.mesh.comm),
+              Utilities::MPI::max(position, state.mesh.comm)};
     }
 
     /// Whether a boundary face of a role with a symmetry condition has a vertex at `point`.
     bool symmetry_at(const FlowState &state, const Point<2> &point, const double tolerance)
     {
-      const auto                    roles = state.flow.geometry->boundary_roles();
+      const auto                    roles = state.physics.flow.geometry->boundary_roles();
       std::set<types::boundary_id>  symmetric;
-      for (const input::BoundaryCondition &bc : state.flow.conditions)
+      for (const input::BoundaryCondition &bc : state.physics.flow.conditions)
         if (bc.type == input::BoundaryCondition::Type::symmetry)
           symmetric.insert(roles.at(bc.role));
       int found = 0;
-      for (const auto &cell : state.triangulation.active_cell_iterators())
+      for (const auto &cell : state.mesh.triangulation.active_cell_iterators())
         if (cell->is_locally_owned())
           for (const auto face_no : cell->face_indices())
             if (cell->face(face_no)->at_boundary() && symmetric.count(cell->face(face_no)->boundary_id()))
               for (unsigned int v = 0; v < 2; ++v)
                 if (cell->face(face_no)->vertex(v).distance(point) < tolerance)
                   found = 1;
-      return Utilities::MPI::max(found, state.comm) > 0;
+      return Utilities::MPI::max(found, state.mesh.comm) > 0;
     }
 
     int axis_of_normal(const FlowState &state, const types::boundary_id id, const std::string &role)
@@ -166,9 +173,9 @@ namespace lentus::flow
     {
     public:
       InflowVelocity(const FlowState &state, const input::BoundaryCondition &bc, const Extent &where)
-        : Function<2>(state.n_velocity + 1)
+        : Function<2>(state.physics.n_velocity + 1)
         , extent(where)
-        , axisymmetric(is_axisymmetric(state.kind))
+        , axisymmetric(is_axisymmetric(state.physics.kind))
       {
         using Channel = DevelopedProfile::Channel;
         const double width = extent.high - extent.low;
@@ -177,7 +184,7 @@ namespace lentus::flow
             if (extent.normal_axis != 1)
               throw InputError("boundary role '" + bc.role + "': an axisymmetric inflow must lie at constant z");
             const bool annulus = extent.low > 1e-9 * extent.high;
-            profile = std::make_unique<DevelopedProfile>(*state.law, annulus ? Channel::annulus : Channel::pipe,
+            profile = std::make_unique<DevelopedProfile>(*state.physics.law, annulus ? Channel::annulus : Channel::pipe,
                                                          extent.high, bc.flow_rate, annulus ? extent.low : 0.);
             return;
           }
@@ -190,7 +197,7 @@ namespace lentus::flow
         // A half slit (midplane at one end) carries half of the full slit's flow.
         midplane = low_midplane ? extent.low : high_midplane ? extent.high : 0.5 * (extent.low + extent.high);
         const bool half = low_midplane || high_midplane;
-        profile = std::make_unique<DevelopedProfile>(*state.law, Channel::slit, half ? width : 0.5 * width,
+        profile = std::make_unique<DevelopedProfile>(*state.physics.law, Channel::slit, half ? width : 0.5 * width,
                                                      half ? 2. * bc.flow_rate : bc.flow_rate);
       }
 
@@ -216,42 +223,42 @@ namespace lentus::flow
   /// number of velocity components, which lets algebraic multigrid treat it as a system.
   void renumber_node_wise(FlowState &state)
   {
-    const IndexSet                       owned = state.dof_handler.locally_owned_dofs();
+    const IndexSet                       owned = state.mesh.dof_handler.locally_owned_dofs();
     std::vector<types::global_dof_index> new_numbers(owned.n_elements(), numbers::invalid_dof_index);
     types::global_dof_index              next = owned.n_elements() ? *owned.begin() : 0;
-    const FiniteElement<2>              &velocity_base = state.fe.base_element(0);
-    std::vector<types::global_dof_index> dof_indices(state.fe.n_dofs_per_cell());
+    const FiniteElement<2>              &velocity_base = state.mesh.fe.base_element(0);
+    std::vector<types::global_dof_index> dof_indices(state.mesh.fe.n_dofs_per_cell());
     const auto assign = [&](const types::global_dof_index index) {
       if (owned.is_element(index) && new_numbers[owned.index_within_set(index)] == numbers::invalid_dof_index)
         new_numbers[owned.index_within_set(index)] = next++;
     };
-    for (const auto &cell : state.dof_handler.active_cell_iterators())
+    for (const auto &cell : state.mesh.dof_handler.active_cell_iterators())
       if (cell->is_locally_owned())
         {
           cell->get_dof_indices(dof_indices);
           for (unsigned int j = 0; j < velocity_base.n_dofs_per_cell(); ++j)
-            for (unsigned int c = 0; c < state.n_velocity; ++c)
-              assign(dof_indices[state.fe.component_to_system_index(c, j)]);
+            for (unsigned int c = 0; c < state.physics.n_velocity; ++c)
+              assign(dof_indices[state.mesh.fe.component_to_system_index(c, j)]);
         }
-    for (const auto &cell : state.dof_handler.active_cell_iterators())
+    for (const auto &cell : state.mesh.dof_handler.active_cell_iterators())
       if (cell->is_locally_owned())
         {
           cell->get_dof_indices(dof_indices);
-          for (unsigned int j = 0; j < state.fe.base_element(1).n_dofs_per_cell(); ++j)
-            assign(dof_indices[state.fe.component_to_system_index(state.n_velocity, j)]);
+          for (unsigned int j = 0; j < state.mesh.fe.base_element(1).n_dofs_per_cell(); ++j)
+            assign(dof_indices[state.mesh.fe.component_to_system_index(state.physics.n_velocity, j)]);
         }
     // Unknowns owned here but only on cells of other ranks (rare): keep them, at the end.
     for (std::size_t i = 0; i < new_numbers.size(); ++i)
       if (new_numbers[i] == numbers::invalid_dof_index)
         new_numbers[i] = next++;
-    state.dof_handler.renumber_dofs(new_numbers);
+    state.mesh.dof_handler.renumber_dofs(new_numbers);
   }
 
   void create_mesh(FlowState &state, const unsigned int level)
   {
-    state.dof_handler.clear();
-    state.triangulation.clear();
-    state.flow.geometry->create_mesh(state.triangulation, level);
+    state.mesh.dof_handler.clear();
+    state.mesh.triangulation.clear();
+    state.physics.flow.geometry->create_mesh(state.mesh.triangulation, level);
   }
 
   namespace
@@ -260,38 +267,38 @@ namespace lentus::flow
     /// pressure index), or invalid_dof_index.
     types::global_dof_index pinned_pressure(const FlowState &state)
     {
-      if (!state.pressure_pinned)
+      if (!state.mesh.pressure_pinned)
         return numbers::invalid_dof_index;
-      const FEValuesExtractors::Scalar pressure(state.n_velocity);
-      const IndexSet pressure_dofs = DoFTools::extract_dofs(state.dof_handler, state.fe.component_mask(pressure));
+      const FEValuesExtractors::Scalar pressure(state.physics.n_velocity);
+      const IndexSet pressure_dofs = DoFTools::extract_dofs(state.mesh.dof_handler, state.mesh.fe.component_mask(pressure));
       const types::global_dof_index first =
         pressure_dofs.n_elements() ? *pressure_dofs.begin() : numbers::invalid_dof_index;
-      return Utilities::MPI::min(first, state.comm);
+      return Utilities::MPI::min(first, state.mesh.comm);
     }
   } // namespace
 
   void refine_and_transfer(FlowState &state)
   {
-    parallel::distributed::SolutionTransfer<2, Vector> transfer(state.dof_handler);
-    for (const auto &cell : state.triangulation.active_cell_iterators())
+    parallel::distributed::SolutionTransfer<2, Vector> transfer(state.mesh.dof_handler);
+    for (const auto &cell : state.mesh.triangulation.active_cell_iterators())
       if (cell->is_locally_owned())
         cell->set_refine_flag();
-    state.triangulation.prepare_coarsening_and_refinement();
+    state.mesh.triangulation.prepare_coarsening_and_refinement();
     transfer.prepare_for_coarsening_and_refinement(state.solution);
-    state.triangulation.execute_coarsening_and_refinement();
+    state.mesh.triangulation.execute_coarsening_and_refinement();
     setup_dofs(state);
-    Vector interpolated(state.owned, state.comm);
+    Vector interpolated(state.mesh.owned, state.mesh.comm);
     transfer.interpolate(interpolated);
     // Without a pressure boundary the pressure is known up to a constant, pinned at one unknown
     // whose index differs on the new mesh: shift the interpolated pressure to vanish there.
     const types::global_dof_index pinned = pinned_pressure(state);
     if (pinned != numbers::invalid_dof_index)
       {
-        const double shift = Utilities::MPI::sum(state.owned.is_element(pinned) ? double(interpolated[pinned]) : 0.,
-                                                 state.comm);
-        const FEValuesExtractors::Scalar pressure(state.n_velocity);
+        const double shift = Utilities::MPI::sum(state.mesh.owned.is_element(pinned) ? double(interpolated[pinned]) : 0.,
+                                                 state.mesh.comm);
+        const FEValuesExtractors::Scalar pressure(state.physics.n_velocity);
         const IndexSet owned_pressures =
-          DoFTools::extract_dofs(state.dof_handler, state.fe.component_mask(pressure)) & state.owned;
+          DoFTools::extract_dofs(state.mesh.dof_handler, state.mesh.fe.component_mask(pressure)) & state.mesh.owned;
         std::vector<Vector::size_type> indices;
         std::vector<double>            values;
         for (const auto index : owned_pressures)
@@ -302,33 +309,33 @@ namespace lentus::flow
         interpolated.set(indices, values);
         interpolated.compress(VectorOperation::insert);
       }
-    state.nonzero_constraints.distribute(interpolated);
+    state.mesh.nonzero_constraints.distribute(interpolated);
     state.solution = interpolated;
   }
 
   void setup_dofs(FlowState &state)
   {
-    const input::FlowCase &flow = state.flow;
-    state.dof_handler.distribute_dofs(state.fe);
+    const input::FlowCase &flow = state.physics.flow;
+    state.mesh.dof_handler.distribute_dofs(state.mesh.fe);
     renumber_node_wise(state);
-    state.owned    = state.dof_handler.locally_owned_dofs();
-    DoFTools::extract_locally_relevant_dofs(state.dof_handler, state.relevant);
+    state.mesh.owned    = state.mesh.dof_handler.locally_owned_dofs();
+    DoFTools::extract_locally_relevant_dofs(state.mesh.dof_handler, state.mesh.relevant);
 
     const auto roles = flow.geometry->boundary_roles();
-    for (AffineConstraints<double> *constraints : {&state.nonzero_constraints, &state.zero_constraints})
+    for (AffineConstraints<double> *constraints : {&state.mesh.nonzero_constraints, &state.mesh.zero_constraints})
       {
-        const bool homogeneous = constraints == &state.zero_constraints;
+        const bool homogeneous = constraints == &state.mesh.zero_constraints;
         constraints->clear();
-        constraints->reinit(state.relevant);
-        DoFTools::make_hanging_node_constraints(state.dof_handler, *constraints);
-        const unsigned int              n_components = state.n_velocity + 1;
+        constraints->reinit(state.mesh.relevant);
+        DoFTools::make_hanging_node_constraints(state.mesh.dof_handler, *constraints);
+        const unsigned int              n_components = state.physics.n_velocity + 1;
         const Functions::ZeroFunction<2> zero(n_components);
         // Walls as seen from the frame of reference (the impeller's frame turns at 2 pi N).
         const double       frame_omega = flow.impeller_frame ? flow.impeller_omega() : 0.;
-        const WallVelocity fixed_wall(state.kind, n_components, 0., 0., 0., frame_omega);
-        const WallVelocity wall(state.kind, n_components, flow.wall_velocity[0], flow.wall_velocity[1],
+        const WallVelocity fixed_wall(state.physics.kind, n_components, 0., 0., 0., frame_omega);
+        const WallVelocity wall(state.physics.kind, n_components, flow.wall_velocity[0], flow.wall_velocity[1],
                                 flow.rotation_rate, frame_omega);
-        const WallVelocity impeller(state.kind, n_components, 0., 0., flow.impeller_omega(), frame_omega);
+        const WallVelocity impeller(state.physics.kind, n_components, 0., 0., flow.impeller_omega(), frame_omega);
         for (const input::BoundaryCondition &bc : flow.conditions)
           {
             const types::boundary_id id = roles.at(bc.role);
@@ -338,16 +345,16 @@ namespace lentus::flow
             switch (bc.type)
               {
                 case input::BoundaryCondition::Type::no_slip:
-                  std::fill(mask.begin(), mask.begin() + state.n_velocity, true);
+                  std::fill(mask.begin(), mask.begin() + state.physics.n_velocity, true);
                   if (!homogeneous && flow.impeller_frame)
                     values = &fixed_wall;
                   break;
                 case input::BoundaryCondition::Type::impeller:
-                  std::fill(mask.begin(), mask.begin() + state.n_velocity, true);
+                  std::fill(mask.begin(), mask.begin() + state.physics.n_velocity, true);
                   values = homogeneous ? static_cast<const Function<2> *>(&zero) : &impeller;
                   break;
                 case input::BoundaryCondition::Type::moving_wall:
-                  std::fill(mask.begin(), mask.begin() + state.n_velocity, true);
+                  std::fill(mask.begin(), mask.begin() + state.physics.n_velocity, true);
                   values = homogeneous ? static_cast<const Function<2> *>(&zero) : &wall;
                   break;
                 case input::BoundaryCondition::Type::pressure:
@@ -359,11 +366,11 @@ namespace lentus::flow
                   break;
                 case input::BoundaryCondition::Type::axis:
                   mask[0] = true; // u_r
-                  if (state.n_velocity == 3)
+                  if (state.physics.n_velocity == 3)
                     mask[2] = true; // u_theta
                   break;
                 case input::BoundaryCondition::Type::inflow:
-                  std::fill(mask.begin(), mask.begin() + state.n_velocity, true);
+                  std::fill(mask.begin(), mask.begin() + state.physics.n_velocity, true);
                   if (!homogeneous)
                     {
                       inflow = std::make_unique<InflowVelocity>(state, bc, extent_of(state, id, bc.role));
@@ -371,7 +378,7 @@ namespace lentus::flow
                     }
                   break;
                 case input::BoundaryCondition::Type::uniform_inflow:
-                  std::fill(mask.begin(), mask.begin() + state.n_velocity, true);
+                  std::fill(mask.begin(), mask.begin() + state.physics.n_velocity, true);
                   if (!homogeneous)
                     {
                       const Extent where = extent_of(state, id, bc.role);
@@ -384,7 +391,7 @@ namespace lentus::flow
                 case input::BoundaryCondition::Type::traction_free:
                   continue;
               }
-            VectorTools::interpolate_boundary_values(state.dof_handler, id, *values, *constraints,
+            VectorTools::interpolate_boundary_values(state.mesh.dof_handler, id, *values, *constraints,
                                                      ComponentMask(mask));
           }
       }
@@ -395,39 +402,39 @@ namespace lentus::flow
     for (const input::BoundaryCondition &bc : flow.conditions)
       pressure_boundary = pressure_boundary || bc.type == input::BoundaryCondition::Type::pressure ||
                           bc.type == input::BoundaryCondition::Type::traction_free;
-    state.pressure_pinned = !pressure_boundary;
-    if (state.pressure_pinned)
+    state.mesh.pressure_pinned = !pressure_boundary;
+    if (state.mesh.pressure_pinned)
       {
         const types::global_dof_index first = pinned_pressure(state);
-        for (AffineConstraints<double> *constraints : {&state.nonzero_constraints, &state.zero_constraints})
-          if (state.relevant.is_element(first) && !constraints->is_constrained(first))
+        for (AffineConstraints<double> *constraints : {&state.mesh.nonzero_constraints, &state.mesh.zero_constraints})
+          if (state.mesh.relevant.is_element(first) && !constraints->is_constrained(first))
             constraints->add_line(first);
       }
-    state.nonzero_constraints.close();
-    state.zero_constraints.close();
+    state.mesh.nonzero_constraints.close();
+    state.mesh.zero_constraints.close();
 
-    DynamicSparsityPattern pattern(state.relevant);
-    DoFTools::make_sparsity_pattern(state.dof_handler, pattern, state.zero_constraints, false);
-    SparsityTools::distribute_sparsity_pattern(pattern, state.owned, state.comm, state.relevant);
-    state.system_matrix.reinit(state.owned, state.owned, pattern, state.comm);
+    DynamicSparsityPattern pattern(state.mesh.relevant);
+    DoFTools::make_sparsity_pattern(state.mesh.dof_handler, pattern, state.mesh.zero_constraints, false);
+    SparsityTools::distribute_sparsity_pattern(pattern, state.mesh.owned, state.mesh.comm, state.mesh.relevant);
+    state.system.system_matrix.reinit(state.mesh.owned, state.mesh.owned, pattern, state.mesh.comm);
     // The Schur-complement preconditioner's pressure mass matrix couples pressures only: its own,
     // much smaller pattern (on the full pattern it would double the matrix memory).
-    Table<2, DoFTools::Coupling> pressure_only(state.n_velocity + 1, state.n_velocity + 1);
+    Table<2, DoFTools::Coupling> pressure_only(state.physics.n_velocity + 1, state.physics.n_velocity + 1);
     pressure_only.fill(DoFTools::none);
-    pressure_only(state.n_velocity, state.n_velocity) = DoFTools::always;
-    DynamicSparsityPattern pressure_pattern(state.relevant);
-    DoFTools::make_sparsity_pattern(state.dof_handler, pressure_only, pressure_pattern, state.zero_constraints, false);
-    SparsityTools::distribute_sparsity_pattern(pressure_pattern, state.owned, state.comm, state.relevant);
-    state.pressure_mass.reinit(state.owned, state.owned, pressure_pattern, state.comm);
-    state.residual.reinit(state.owned, state.comm);
-    state.solution.reinit(state.owned, state.relevant, state.comm);
+    pressure_only(state.physics.n_velocity, state.physics.n_velocity) = DoFTools::always;
+    DynamicSparsityPattern pressure_pattern(state.mesh.relevant);
+    DoFTools::make_sparsity_pattern(state.mesh.dof_handler, pressure_only, pressure_pattern, state.mesh.zero_constraints, false);
+    SparsityTools::distribute_sparsity_pattern(pressure_pattern, state.mesh.owned, state.mesh.comm, state.mesh.relevant);
+    state.system.pressure_mass.reinit(state.mesh.owned, state.mesh.owned, pressure_pattern, state.mesh.comm);
+    state.system.residual.reinit(state.mesh.owned, state.mesh.comm);
+    state.solution.reinit(state.mesh.owned, state.mesh.relevant, state.mesh.comm);
   }
 
   void initial_solution(FlowState &state)
   {
-    Vector owned_solution(state.owned, state.comm);
+    Vector owned_solution(state.mesh.owned, state.mesh.comm);
     owned_solution = 0.;
-    state.nonzero_constraints.distribute(owned_solution);
+    state.mesh.nonzero_constraints.distribute(owned_solution);
     state.solution = owned_solution;
   }
 } // namespace lentus::flow

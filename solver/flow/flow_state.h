@@ -46,27 +46,52 @@ namespace lentus::flow
     std::ostringstream record;
   };
 
+  /// What is solved: the case, its formulation, the fluid's law and the density. Passed const;
+  /// a continuation step solves a softened copy and leaves the case's physics as it is.
+  struct Physics
+  {
+    Physics(const input::FlowCase &flow_case);
+
+    const input::FlowCase                        &flow;
+    FormulationKind                               kind;
+    unsigned int                                  n_velocity; ///< 2, or 3 with swirl
+    std::shared_ptr<const rheology::ViscosityLaw> law;
+    double                                        density = 0.; ///< 0 when neither inertia nor gravity
+  };
+
+  /// The discretization: mesh, finite elements, unknowns and their constraints.
+  struct Discretization
+  {
+    Discretization(const input::FlowCase &flow_case, MPI_Comm communicator);
+
+    MPI_Comm                                        comm;
+    unsigned int                                    rank, n_ranks;
+    dealii::parallel::distributed::Triangulation<2> triangulation;
+    dealii::FESystem<2>                             fe;
+    dealii::DoFHandler<2>                           dof_handler;
+    dealii::IndexSet                                owned, relevant;
+    dealii::AffineConstraints<double>               nonzero_constraints, zero_constraints;
+    bool                                            pressure_pinned = false;
+  };
+
+  /// The linear system of the current linearization.
+  struct LinearSystem
+  {
+    Matrix system_matrix;
+    Matrix pressure_mass; ///< 1/eta-weighted pressure mass matrix (Schur-complement preconditioner)
+    Vector residual;      ///< -R, owned
+  };
+
+  /// One flow solve: physics (const), discretization, linear system, solution and log.
   struct FlowState
   {
     FlowState(const input::FlowCase &flow_case, MPI_Comm communicator);
 
-    const input::FlowCase                     &flow;
-    MPI_Comm                                   comm;
-    unsigned int                               rank, n_ranks;
-    FormulationKind                            kind;
-    unsigned int                               n_velocity;
-    dealii::parallel::distributed::Triangulation<2> triangulation;
-    dealii::FESystem<2>                        fe;
-    dealii::DoFHandler<2>                      dof_handler;
-    dealii::IndexSet                           owned, relevant;
-    dealii::AffineConstraints<double>          nonzero_constraints, zero_constraints;
-    Matrix                                     system_matrix, pressure_mass;
-    Vector                                     residual;      ///< owned
-    Vector                                     solution;      ///< ghosted
-    std::shared_ptr<const rheology::ViscosityLaw> law;        ///< current (continuation may soften it)
-    double                                     density = 0.;  ///< 0 when neither inertia nor gravity
-    bool                                       pressure_pinned = false;
-    Log                                        log;
+    const Physics  physics;
+    Discretization mesh;
+    LinearSystem   system;
+    Vector         solution; ///< ghosted
+    Log            log;
   };
 
   // flow_setup.cc
@@ -89,25 +114,28 @@ namespace lentus::flow
     picard, ///< eta frozen, Oseen inertia
     newton  ///< exact Jacobian
   };
-  /// Assembles the residual R(u) of `evaluation_point` (ghosted) into state.residual as -R, and the
-  /// matrix (and the 1/eta-weighted pressure mass matrix) unless `linearization` is none.
-  /// Returns the l2 norm of R over the unconstrained unknowns.
-  double assemble(FlowState &state, const Vector &evaluation_point, Linearization linearization);
+  /// Assembles the residual R(u) of `evaluation_point` (ghosted) for `physics` into system.residual
+  /// as -R, and the matrix (and the 1/eta-weighted pressure mass matrix) unless `linearization` is
+  /// none. Returns the l2 norm of R over the unconstrained unknowns.
+  double assemble(const Physics &physics, const Discretization &mesh, const Vector &evaluation_point,
+                  Linearization linearization, LinearSystem &system);
 
   /// The residual R(u) of `evaluation_point` without any constraint applied
   /// (owned vector): on Dirichlet boundaries R_i is the work of the boundary
   /// traction on shape function i, which gives consistent reaction forces,
   /// torques and powers (more accurate than integrating stresses over the surface).
-  void assemble_reactions(FlowState &state, const Vector &evaluation_point, Vector &reactions);
+  void assemble_reactions(const Physics &physics, const Discretization &mesh, const Vector &evaluation_point,
+                          Vector &reactions);
 
   // flow_linear_solver.cc
   /// Solves system_matrix * update = residual; returns the iterations (1 for the direct solver).
   /// `relative_tolerance` is the iterative solver's residual reduction.
-  unsigned int solve_linear(FlowState &state, Vector &update, bool direct, double relative_tolerance = 1e-10);
+  unsigned int solve_linear(const Physics &physics, const Discretization &mesh, LinearSystem &system,
+                            Vector &update, bool direct, double relative_tolerance = 1e-10);
 
   // flow_newton.cc
   /// Newton with line search, Picard start and continuation on the current mesh, from rest.
-  /// Appends to `report`; leaves the last iterate in state.solution.
+  /// Appends to `outcome`; leaves the last iterate in state.solution.
   void solve_nonlinear(FlowState &state, SolveOutcome &outcome);
   /// The whole solve: creates the mesh (and its coarser ones under mesh sequencing), solves on
   /// each, and leaves the state on the mesh of Geometry/Refinement.

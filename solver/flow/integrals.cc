@@ -29,16 +29,16 @@ namespace lentus::flow
     /// Volume, dissipation, unyielded region, maximum speed.
     report::CellIntegrals cell_integrals(const FlowState &state)
     {
-      const QGauss<2> quadrature(state.fe.degree + 1);
-      FEValues<2>     fe_values(state.fe, quadrature,
+      const QGauss<2> quadrature(state.mesh.fe.degree + 1);
+      FEValues<2>     fe_values(state.mesh.fe, quadrature,
                                 update_values | update_gradients | update_quadrature_points | update_JxW_values);
-      std::vector<dealii::Vector<double>>    values(quadrature.size(), dealii::Vector<double>(state.n_velocity + 1));
+      std::vector<dealii::Vector<double>>    values(quadrature.size(), dealii::Vector<double>(state.physics.n_velocity + 1));
       std::vector<std::vector<Tensor<1, 2>>> gradients(quadrature.size(),
-                                                       std::vector<Tensor<1, 2>>(state.n_velocity + 1));
-      const double tau_y     = state.law->yield_stress();
+                                                       std::vector<Tensor<1, 2>>(state.physics.n_velocity + 1));
+      const double tau_y     = state.physics.law->yield_stress();
       double       sums[5]   = {0., 0., 0., 0., 0.}; // area, volume, dissipation, unyielded area, unyielded volume
       double       max_speed = 0.;
-      for (const auto &cell : state.dof_handler.active_cell_iterators())
+      for (const auto &cell : state.mesh.dof_handler.active_cell_iterators())
         if (cell->is_locally_owned())
           {
             fe_values.reinit(cell);
@@ -47,10 +47,10 @@ namespace lentus::flow
             for (unsigned int q = 0; q < quadrature.size(); ++q)
               {
                 const Point<2>  &x         = fe_values.quadrature_point(q);
-                const double     w         = volume_weight(state.kind, x) * fe_values.JxW(q);
-                const Kinematics u         = kinematics(state.kind, x, &values[q][0], gradients[q].data());
+                const double     w         = volume_weight(state.physics.kind, x) * fe_values.JxW(q);
+                const Kinematics u         = kinematics(state.physics.kind, x, &values[q][0], gradients[q].data());
                 const double     gamma_dot = shear_rate(u.L);
-                const double     eta       = state.law->evaluate(gamma_dot).value;
+                const double     eta       = state.physics.law->evaluate(gamma_dot).value;
                 sums[0] += fe_values.JxW(q);
                 sums[1] += w;
                 sums[2] += eta * gamma_dot * gamma_dot * w; // 2 eta D:D = eta gamma_dot^2
@@ -62,31 +62,31 @@ namespace lentus::flow
                 max_speed = std::max(max_speed, fixed_frame_velocity(state, x, u.U).norm());
               }
           }
-      Utilities::MPI::sum(ArrayView<const double>(sums, 5), state.comm, ArrayView<double>(sums, 5));
+      Utilities::MPI::sum(ArrayView<const double>(sums, 5), state.mesh.comm, ArrayView<double>(sums, 5));
       report::CellIntegrals cells;
       cells.area             = sums[0];
       cells.volume           = sums[1];
       cells.dissipation      = sums[2];
       cells.unyielded_area   = sums[3];
       cells.unyielded_volume = sums[4];
-      cells.max_speed        = Utilities::MPI::max(max_speed, state.comm);
+      cells.max_speed        = Utilities::MPI::max(max_speed, state.mesh.comm);
       return cells;
     }
 
     /// Flux, weighted pressure and weighted length of every role.
     void add_face_integrals(const FlowState &state, std::map<std::string, report::RoleIntegrals> &roles)
     {
-      const unsigned int pressure_component = state.n_velocity;
-      const QGauss<1>    face_quadrature(state.fe.degree + 1);
-      FEFaceValues<2>    face_values(state.fe, face_quadrature,
+      const unsigned int pressure_component = state.physics.n_velocity;
+      const QGauss<1>    face_quadrature(state.mesh.fe.degree + 1);
+      FEFaceValues<2>    face_values(state.mesh.fe, face_quadrature,
                                      update_values | update_quadrature_points | update_normal_vectors | update_JxW_values);
       std::vector<dealii::Vector<double>> face_point_values(face_quadrature.size(),
-                                                            dealii::Vector<double>(state.n_velocity + 1));
+                                                            dealii::Vector<double>(state.physics.n_velocity + 1));
       std::map<types::boundary_id, std::array<double, 3>> role_sums;
-      const auto                                          ids = state.flow.geometry->boundary_roles();
+      const auto                                          ids = state.physics.flow.geometry->boundary_roles();
       for (const auto &[name, id] : ids)
         role_sums[id] = std::array<double, 3>{};
-      for (const auto &cell : state.dof_handler.active_cell_iterators())
+      for (const auto &cell : state.mesh.dof_handler.active_cell_iterators())
         if (cell->is_locally_owned())
           for (const auto face_no : cell->face_indices())
             if (cell->face(face_no)->at_boundary())
@@ -98,14 +98,14 @@ namespace lentus::flow
                   {
                     // Only the in-plane components (mesh components 0, 1) cross the boundary.
                     const Tensor<1, 2> &n = face_values.normal_vector(q);
-                    const double w = volume_weight(state.kind, face_values.quadrature_point(q)) * face_values.JxW(q);
+                    const double w = volume_weight(state.physics.kind, face_values.quadrature_point(q)) * face_values.JxW(q);
                     sum[0] += (face_point_values[q][0] * n[0] + face_point_values[q][1] * n[1]) * w;
                     sum[1] += face_point_values[q][pressure_component] * w;
                     sum[2] += w;
                   }
               }
       for (auto &[id, sum] : role_sums)
-        Utilities::MPI::sum(ArrayView<const double>(sum.data(), 3), state.comm, ArrayView<double>(sum.data(), 3));
+        Utilities::MPI::sum(ArrayView<const double>(sum.data(), 3), state.mesh.comm, ArrayView<double>(sum.data(), 3));
       for (const auto &[name, id] : ids)
         {
           report::RoleIntegrals &role = roles[name];
@@ -117,30 +117,30 @@ namespace lentus::flow
 
     /// Torque, power and forces of each role from the unconstrained residual. Each boundary
     /// unknown belongs to the first role that constrains it.
-    void add_reactions(FlowState &state, std::map<std::string, report::RoleIntegrals> &roles)
+    void add_reactions(const FlowState &state, std::map<std::string, report::RoleIntegrals> &roles)
     {
-      const Formulation formulation(state.kind);
+      const Formulation formulation(state.physics.kind);
       Vector            reactions;
-      assemble_reactions(state, state.solution, reactions);
+      assemble_reactions(state.physics, state.mesh, state.solution, reactions);
       std::map<types::global_dof_index, Point<2>> support_points;
-      DoFTools::map_dofs_to_support_points(MappingQ1<2>(), state.dof_handler, support_points);
+      DoFTools::map_dofs_to_support_points(MappingQ1<2>(), state.mesh.dof_handler, support_points);
       std::vector<IndexSet> component_dofs;
-      for (unsigned int c = 0; c < state.n_velocity; ++c)
+      for (unsigned int c = 0; c < state.physics.n_velocity; ++c)
         {
-          ComponentMask mask(state.n_velocity + 1, false);
+          ComponentMask mask(state.physics.n_velocity + 1, false);
           mask.set(c, true);
-          component_dofs.push_back(DoFTools::extract_dofs(state.dof_handler, mask));
+          component_dofs.push_back(DoFTools::extract_dofs(state.mesh.dof_handler, mask));
         }
-      ComponentMask velocity_mask(state.n_velocity + 1, true);
-      velocity_mask.set(state.n_velocity, false);
-      IndexSet   claimed(state.dof_handler.n_dofs());
-      const auto ids = state.flow.geometry->boundary_roles();
+      ComponentMask velocity_mask(state.physics.n_velocity + 1, true);
+      velocity_mask.set(state.physics.n_velocity, false);
+      IndexSet   claimed(state.mesh.dof_handler.n_dofs());
+      const auto ids = state.physics.flow.geometry->boundary_roles();
       // Walls first, so that a corner unknown shared with a symmetry, axis or pressure role (which
       // leave some of its components free) counts for the wall; roles that fix every velocity
       // component come first.
       std::vector<input::BoundaryCondition> walls_first;
       for (const bool wall_pass : {true, false})
-        for (const input::BoundaryCondition &bc : state.flow.conditions)
+        for (const input::BoundaryCondition &bc : state.physics.flow.conditions)
           {
             const bool fixed = is_wall(bc) || bc.type == input::BoundaryCondition::Type::inflow ||
                                bc.type == input::BoundaryCondition::Type::uniform_inflow;
@@ -150,7 +150,7 @@ namespace lentus::flow
       for (const input::BoundaryCondition &bc : walls_first)
         {
           const IndexSet on_role =
-            DoFTools::extract_boundary_dofs(state.dof_handler, velocity_mask, {ids.at(bc.role)}) & state.owned;
+            DoFTools::extract_boundary_dofs(state.mesh.dof_handler, velocity_mask, {ids.at(bc.role)}) & state.mesh.owned;
           double torque = 0., power = 0.;
           double force[2] = {0., 0.};
           for (const auto index : on_role)
@@ -169,9 +169,9 @@ namespace lentus::flow
               torque += formulation.torque_arm(component, x) * reaction;
             }
           report::RoleIntegrals &role = roles[bc.role];
-          role.torque                 = Utilities::MPI::sum(torque, state.comm);
-          role.power                  = Utilities::MPI::sum(power, state.comm);
-          Utilities::MPI::sum(ArrayView<const double>(force, 2), state.comm, ArrayView<double>(force, 2));
+          role.torque                 = Utilities::MPI::sum(torque, state.mesh.comm);
+          role.power                  = Utilities::MPI::sum(power, state.mesh.comm);
+          Utilities::MPI::sum(ArrayView<const double>(force, 2), state.mesh.comm, ArrayView<double>(force, 2));
           role.force[0] = force[0];
           role.force[1] = force[1];
         }
@@ -180,42 +180,42 @@ namespace lentus::flow
 
   void make_pressure_mean_free(FlowState &state)
   {
-    if (!state.pressure_pinned)
+    if (!state.mesh.pressure_pinned)
       return;
-    const unsigned int pressure_component = state.n_velocity;
-    const QGauss<2>    quadrature(state.fe.degree + 1);
-    FEValues<2>        fe_values(state.fe, quadrature, update_values | update_quadrature_points | update_JxW_values);
-    std::vector<dealii::Vector<double>> values(quadrature.size(), dealii::Vector<double>(state.n_velocity + 1));
+    const unsigned int pressure_component = state.physics.n_velocity;
+    const QGauss<2>    quadrature(state.mesh.fe.degree + 1);
+    FEValues<2>        fe_values(state.mesh.fe, quadrature, update_values | update_quadrature_points | update_JxW_values);
+    std::vector<dealii::Vector<double>> values(quadrature.size(), dealii::Vector<double>(state.physics.n_velocity + 1));
     // p -= int p w / int w.
     double integral[2] = {0., 0.};
-    for (const auto &cell : state.dof_handler.active_cell_iterators())
+    for (const auto &cell : state.mesh.dof_handler.active_cell_iterators())
       if (cell->is_locally_owned())
         {
           fe_values.reinit(cell);
           fe_values.get_function_values(state.solution, values);
           for (unsigned int q = 0; q < quadrature.size(); ++q)
             {
-              const double w = volume_weight(state.kind, fe_values.quadrature_point(q)) * fe_values.JxW(q);
+              const double w = volume_weight(state.physics.kind, fe_values.quadrature_point(q)) * fe_values.JxW(q);
               integral[0] += values[q][pressure_component] * w;
               integral[1] += w;
             }
         }
-    Utilities::MPI::sum(ArrayView<const double>(integral, 2), state.comm, ArrayView<double>(integral, 2));
+    Utilities::MPI::sum(ArrayView<const double>(integral, 2), state.mesh.comm, ArrayView<double>(integral, 2));
     const double   mean = integral[0] / integral[1];
     const IndexSet pressure_dofs =
-      DoFTools::extract_dofs(state.dof_handler, state.fe.component_mask(FEValuesExtractors::Scalar(pressure_component)));
-    Vector owned(state.owned, state.comm);
+      DoFTools::extract_dofs(state.mesh.dof_handler, state.mesh.fe.component_mask(FEValuesExtractors::Scalar(pressure_component)));
+    Vector owned(state.mesh.owned, state.mesh.comm);
     owned = state.solution;
-    for (const auto index : pressure_dofs & state.owned)
+    for (const auto index : pressure_dofs & state.mesh.owned)
       owned[index] -= mean;
     owned.compress(VectorOperation::add);
     state.solution = owned;
   }
 
-  report::FlowIntegrals flow_integrals(FlowState &state)
+  report::FlowIntegrals flow_integrals(const FlowState &state)
   {
     report::FlowIntegrals integrals;
-    for (const input::BoundaryCondition &bc : state.flow.conditions)
+    for (const input::BoundaryCondition &bc : state.physics.flow.conditions)
       {
         report::ConditionInfo condition;
         condition.role     = bc.role;

@@ -36,9 +36,9 @@ namespace lentus::flow
 
     std::vector<std::string> case_cautions(const FlowState &state, const report::DesignNumbers &numbers)
     {
-      const input::FlowCase   &flow = state.flow;
+      const input::FlowCase   &flow = state.physics.flow;
       std::vector<std::string> cautions;
-      if (has_impeller(state) && !is_axisymmetric(state.kind))
+      if (has_impeller(state) && !is_axisymmetric(state.physics.kind))
         cautions.emplace_back("A planar section of a vessel ignores the axial flow and the ends of the impeller: "
                               "torque and power are per metre of depth of an idealized, infinitely long impeller.");
       if (!flow.geometry->straight_sections().empty() && numbers.find("pressure drop inlet to outlet"))
@@ -47,23 +47,23 @@ namespace lentus::flow
           (std::isnan(flow.fluid.temperature) ? std::string("the fluid's reference temperature") :
                                                 rheology::format_short(flow.fluid.temperature) + " K") +
           "); screens, adapters, viscous heating and the melt's pressure dependence are not included.");
-      if (state.law->yield_stress() > 0.)
+      if (state.physics.law->yield_stress() > 0.)
         cautions.emplace_back("Yield-stress fluid regularized after Papanastasiou: unyielded regions and the cavern "
                               "are approximations that move as the regularization exponent grows.");
       return cautions;
     }
   } // namespace
 
-  report::Summary summarize(FlowState &state, const SolveOutcome &outcome)
+  report::Summary summarize(const FlowState &state, const SolveOutcome &outcome)
   {
-    const input::FlowCase      &flow = state.flow;
-    const Formulation           formulation(state.kind);
+    const input::FlowCase      &flow = state.physics.flow;
+    const Formulation           formulation(state.physics.kind);
     const report::FlowIntegrals integrals = flow_integrals(state);
 
     report::Summary summary;
     report::DesignNumbers &numbers = summary.numbers;
     report::add_role_numbers(formulation, integrals, numbers);
-    report::add_die_numbers(formulation, *state.law, flow.geometry->straight_sections(), integrals, numbers);
+    report::add_die_numbers(formulation, *state.physics.law, flow.geometry->straight_sections(), integrals, numbers);
     if (has_impeller(state))
       {
         report::Impeller impeller;
@@ -71,26 +71,26 @@ namespace lentus::flow
         impeller.diameter              = flow.geometry->impeller_diameter();
         impeller.density               = flow.fluid.density;
         impeller.metzner_otto_constant = flow.metzner_otto_constant;
-        report::add_vessel_numbers(formulation, *state.law, impeller, integrals, vessel_integrals(state), numbers);
+        report::add_vessel_numbers(formulation, *state.physics.law, impeller, integrals, vessel_integrals(state), numbers);
         summary.dead_zone_fraction = flow.dead_zone_fraction;
       }
-    report::add_energy_and_region_numbers(formulation, state.law->yield_stress(), integrals, numbers);
+    report::add_energy_and_region_numbers(formulation, state.physics.law->yield_stress(), integrals, numbers);
     mark_default_key_numbers(numbers);
 
     summary.case_file           = flow.case_file;
     summary.converged           = outcome.converged;
     summary.reason              = outcome.reason;
-    summary.velocity_components = velocity_components(state.kind);
+    summary.velocity_components = velocity_components(state.physics.kind);
     summary.viscosity_law       = flow.fluid.law_name;
-    summary.yield_stress        = state.law->yield_stress();
-    summary.cells               = state.triangulation.n_global_active_cells();
-    summary.unknowns            = state.dof_handler.n_dofs();
+    summary.yield_stress        = state.physics.law->yield_stress();
+    summary.cells               = state.mesh.triangulation.n_global_active_cells();
+    summary.unknowns            = state.mesh.dof_handler.n_dofs();
     summary.history             = outcome.history;
     summary.case_cautions       = case_cautions(state, numbers);
     const double memory         = peak_memory();
-    summary.resources.peak_memory_per_rank  = dealii::Utilities::MPI::max(memory, state.comm);
-    summary.resources.peak_memory_all_ranks = dealii::Utilities::MPI::sum(memory, state.comm);
-    summary.resources.ranks                 = state.n_ranks;
+    summary.resources.peak_memory_per_rank  = dealii::Utilities::MPI::max(memory, state.mesh.comm);
+    summary.resources.peak_memory_all_ranks = dealii::Utilities::MPI::sum(memory, state.mesh.comm);
+    summary.resources.ranks                 = state.mesh.n_ranks;
     return summary;
   }
 } // namespace lentus::flow

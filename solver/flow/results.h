@@ -9,5 +9,5 @@ namespace lentus::flow
 {
   /// The summary of the solved state (does not change the solution; call
   /// make_pressure_mean_free() first). Collective.
-  report::Summary summarize(FlowState &state, const SolveOutcome &outcome);
+  report::Summary summarize(const FlowState &state, const SolveOutcome &outcome);
 } // namespace lentus::flow

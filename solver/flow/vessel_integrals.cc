@@ -20,7 +20,7 @@ namespace lentus::flow
 
   bool has_impeller(const FlowState &state)
   {
-    return std::any_of(state.flow.conditions.begin(), state.flow.conditions.end(), [](const auto &bc) {
+    return std::any_of(state.physics.flow.conditions.begin(), state.physics.flow.conditions.end(), [](const auto &bc) {
       return bc.type == input::BoundaryCondition::Type::impeller;
     });
   }
@@ -28,9 +28,9 @@ namespace lentus::flow
   Tensor<1, 3> fixed_frame_velocity(const FlowState &state, const Point<2> &x, const Tensor<1, 3> &U)
   {
     Tensor<1, 3> lab = U;
-    if (state.flow.impeller_frame && state.kind == FormulationKind::planar)
+    if (state.physics.flow.impeller_frame && state.physics.kind == FormulationKind::planar)
       {
-        const double omega = state.flow.impeller_omega();
+        const double omega = state.physics.flow.impeller_omega();
         lab[0] -= omega * x[1];
         lab[2] += omega * x[0];
       }
@@ -64,9 +64,9 @@ namespace lentus::flow
 
   report::VesselIntegrals vessel_integrals(const FlowState &state)
   {
-    const input::FlowCase &flow         = state.flow;
-    const bool             axisymmetric = is_axisymmetric(state.kind);
-    const double           tau_y        = state.law->yield_stress();
+    const input::FlowCase &flow         = state.physics.flow;
+    const bool             axisymmetric = is_axisymmetric(state.physics.kind);
+    const double           tau_y        = state.physics.law->yield_stress();
     const double           tip_speed    = M_PI * flow.rotation_speed * flow.geometry->impeller_diameter();
     std::set<types::boundary_id> impeller_ids;
     const auto                   roles = flow.geometry->boundary_roles();
@@ -75,12 +75,12 @@ namespace lentus::flow
         impeller_ids.insert(roles.at(bc.role));
 
     // Dead zones and the cells of the cavern.
-    const QGauss<2>                        quadrature(state.fe.degree + 1);
-    FEValues<2>                            fe_values(state.fe, quadrature,
+    const QGauss<2>                        quadrature(state.mesh.fe.degree + 1);
+    FEValues<2>                            fe_values(state.mesh.fe, quadrature,
                                                      update_values | update_gradients | update_quadrature_points |
                                                        update_JxW_values);
-    std::vector<dealii::Vector<double>>    values(quadrature.size(), dealii::Vector<double>(state.n_velocity + 1));
-    std::vector<std::vector<Tensor<1, 2>>> gradients(quadrature.size(), std::vector<Tensor<1, 2>>(state.n_velocity + 1));
+    std::vector<dealii::Vector<double>>    values(quadrature.size(), dealii::Vector<double>(state.physics.n_velocity + 1));
+    std::vector<std::vector<Tensor<1, 2>>> gradients(quadrature.size(), std::vector<Tensor<1, 2>>(state.physics.n_velocity + 1));
     double                                 sums[4] = {0., 0., 0., 0.}; // area, volume, dead area, dead volume
     std::vector<CellRecord>                records;
     double                                 scale = 0.;
@@ -90,11 +90,11 @@ namespace lentus::flow
       for (unsigned int i = 0; i < samples; ++i)
         grid.emplace_back(static_cast<double>(i) / (samples - 1), static_cast<double>(j) / (samples - 1));
     const Quadrature<2>                    sample_rule(grid);
-    FEValues<2>                            sample_values(state.fe, sample_rule,
+    FEValues<2>                            sample_values(state.mesh.fe, sample_rule,
                                                          update_values | update_gradients | update_quadrature_points);
-    std::vector<dealii::Vector<double>>    grid_values(grid.size(), dealii::Vector<double>(state.n_velocity + 1));
-    std::vector<std::vector<Tensor<1, 2>>> grid_gradients(grid.size(), std::vector<Tensor<1, 2>>(state.n_velocity + 1));
-    for (const auto &cell : state.dof_handler.active_cell_iterators())
+    std::vector<dealii::Vector<double>>    grid_values(grid.size(), dealii::Vector<double>(state.physics.n_velocity + 1));
+    std::vector<std::vector<Tensor<1, 2>>> grid_gradients(grid.size(), std::vector<Tensor<1, 2>>(state.physics.n_velocity + 1));
+    for (const auto &cell : state.mesh.dof_handler.active_cell_iterators())
       if (cell->is_locally_owned())
         {
           fe_values.reinit(cell);
@@ -104,10 +104,10 @@ namespace lentus::flow
           for (unsigned int q = 0; q < quadrature.size(); ++q)
             {
               const Point<2>    &x = fe_values.quadrature_point(q);
-              const double       w = volume_weight(state.kind, x) * fe_values.JxW(q);
-              const Kinematics   u = kinematics(state.kind, x, &values[q][0], gradients[q].data());
+              const double       w = volume_weight(state.physics.kind, x) * fe_values.JxW(q);
+              const Kinematics   u = kinematics(state.physics.kind, x, &values[q][0], gradients[q].data());
               const double       gamma_dot = shear_rate(u.L);
-              const bool         unyielded  = tau_y > 0. && state.law->evaluate(gamma_dot).value * gamma_dot < tau_y;
+              const bool         unyielded  = tau_y > 0. && state.physics.law->evaluate(gamma_dot).value * gamma_dot < tau_y;
               const double       speed      = fixed_frame_velocity(state, x, u.U).norm();
               const bool         dead       = unyielded || speed < flow.dead_zone_fraction * tip_speed;
               sums[0] += fe_values.JxW(q);
@@ -131,11 +131,11 @@ namespace lentus::flow
               for (unsigned int k = 0; k < grid.size(); ++k)
                 {
                   const Point<2>    &x = sample_values.quadrature_point(k);
-                  const Kinematics   u = kinematics(state.kind, x, &grid_values[k][0], grid_gradients[k].data());
+                  const Kinematics   u = kinematics(state.physics.kind, x, &grid_values[k][0], grid_gradients[k].data());
                   const double       gamma_dot = shear_rate(u.L);
                   record[sample_grid + 3 * k]     = x[0];
                   record[sample_grid + 3 * k + 1] = x[1];
-                  record[sample_grid + 3 * k + 2] = state.law->evaluate(gamma_dot).value * gamma_dot - tau_y;
+                  record[sample_grid + 3 * k + 2] = state.physics.law->evaluate(gamma_dot).value * gamma_dot - tau_y;
                 }
             }
           for (const auto face_no : cell->face_indices())
@@ -149,7 +149,7 @@ namespace lentus::flow
           scale = std::max(scale, cell->center().norm() + cell->diameter());
           records.push_back(record);
         }
-    Utilities::MPI::sum(ArrayView<const double>(sums, 4), state.comm, ArrayView<double>(sums, 4));
+    Utilities::MPI::sum(ArrayView<const double>(sums, 4), state.mesh.comm, ArrayView<double>(sums, 4));
     report::VesselIntegrals result;
     result.area        = sums[0];
     result.volume      = sums[1];
@@ -159,10 +159,10 @@ namespace lentus::flow
       return result;
 
     // Cavern: flood fill on rank 0 from the yielded cells at the impeller through yielded neighbours.
-    scale                 = Utilities::MPI::max(scale, state.comm);
-    const auto all        = Utilities::MPI::gather(state.comm, records, 0);
+    scale                 = Utilities::MPI::max(scale, state.mesh.comm);
+    const auto all        = Utilities::MPI::gather(state.mesh.comm, records, 0);
     double     cavern[4]  = {0., 0., 0., 0.}; // radius, height, measure, found
-    if (state.rank == 0)
+    if (state.mesh.rank == 0)
       {
         std::vector<CellRecord> cells;
         for (const auto &part : all)
@@ -243,7 +243,7 @@ namespace lentus::flow
           }
         cavern[1] = cavern[3] > 0. && top >= bottom ? top - bottom : 0.; // no yielded sample: no extent
       }
-    MPI_Bcast(cavern, 4, MPI_DOUBLE, 0, state.comm);
+    MPI_Bcast(cavern, 4, MPI_DOUBLE, 0, state.mesh.comm);
     result.cavern_radius  = cavern[0];
     result.cavern_height  = cavern[1];
     result.cavern_measure = cavern[2];
