@@ -127,10 +127,11 @@ def _number_table(numbers):
         for name, entry in numbers.items():
             if entry.get("group", "") != group:
                 continue
-            rows.append('<tr class="number%s" data-design-number="%s"><td class="name">%s</td><td class="symbol">%s</td>'
-                        '<td class="value">%s</td>%s<td class="unit">%s</td></tr>' % (
+            value = case_folder.design_number_text(entry.get("value"))
+            rows.append('<tr class="number%s" data-design-number="%s"><td class="name">%s</td>'
+                        '<td class="symbol">%s</td><td class="value">%s</td>%s<td class="unit">%s</td></tr>' % (
                             " key" if entry.get("key", False) else "", _escape(name), _escape(name),
-                            _escape(entry.get("symbol", "")), _escape(case_folder.design_number_text(entry.get("value"))),
+                            _escape(entry.get("symbol", "")), _escape(value),
                             '<td class="error">%s</td>' % _error_text(entry) if errors else "",
                             _escape(entry.get("unit", ""))))
     return '<table class="design-numbers">\n%s\n</table>' % "\n".join(rows)

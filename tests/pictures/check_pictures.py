@@ -178,12 +178,14 @@ window.addEventListener("load", function () {
       return what + ": hidden";
     return "";
   }
-  function lines(element) {
-    var range = document.createRange(), tops = {};
+  function lines(element) {  // text boxes whose tops differ by more than half a line start new lines
+    var range = document.createRange(), tops = [], count = 0, last = -1e9;
     range.selectNodeContents(element);
-    var boxes = range.getClientRects();
-    for (var k = 0; k < boxes.length; ++k) tops[Math.round(boxes[k].top)] = true;
-    return Object.keys(tops).length;
+    var boxes = range.getClientRects(), half = 0.5 * parseFloat(getComputedStyle(element).fontSize);
+    for (var k = 0; k < boxes.length; ++k) tops.push(boxes[k].top);
+    tops.sort(function (a, b) { return a - b; });
+    tops.forEach(function (top) { if (top - last > half) { ++count; last = top; } });
+    return count;
   }
   document.querySelectorAll("[data-design-number], [data-key-number]").forEach(function (element) {
     var name = element.getAttribute("data-design-number") || element.getAttribute("data-key-number");
