@@ -1,5 +1,6 @@
-"""Reading a Lentus case folder: summary.json, case.prm, log.txt, exit_profile.csv
-and the fields (fields.pvd -> .pvtu -> .vtu pieces, ASCII or base64, zlib or not).
+"""Reading a Lentus case folder: summary.json (every result and the numerics: the pictures
+and the report read their facts from it, never from log.txt), case.prm, exit_profile.csv and
+the fields (fields.pvd -> .pvtu -> .vtu pieces, ASCII or base64, zlib or not).
 
 Only the standard library and numpy: the folder can be read without matplotlib.
 """
@@ -7,7 +8,6 @@ import base64
 import csv
 import json
 import os
-import re
 import xml.etree.ElementTree as ElementTree
 import zlib
 
@@ -49,31 +49,27 @@ def read_case(folder):
     return values, changed
 
 
-def read_log(folder):
-    """log.txt: the mesh line and every nonlinear iteration, grouped in solves
-    (a continuation makes several). Returns (lines, solves); a solve is a dict with
-    'label', 'initial' residual and 'iterations' [(kind, residual, step, linear)]."""
-    path = os.path.join(folder, "log.txt")
-    if not os.path.exists(path):
-        return [], []
-    with open(path, encoding="utf-8") as handle:
-        lines = handle.read().splitlines()
-    solves, label = [], "direct solve"
-    step = re.compile(r"^\s*\d+\s+(Picard|Newton)\s+residual\s+(\S+)\s+step\s+(\S+)\s+linear iterations\s+(\S+)")
-    for line in lines:
-        if line.startswith("Continuation in "):
-            label = None
-        elif line.startswith(" ") and not line.startswith("  ") and "=" in line:
-            label = line.strip()  # " Regularization exponent = 10": one continuation step
-        match_initial = re.match(r"^\s*initial residual\s+(\S+)", line)
-        if match_initial:
-            solves.append({"label": label or "solve", "initial": float(match_initial.group(1)), "iterations": []})
-            continue
-        match = step.match(line)
-        if match and solves:
-            solves[-1]["iterations"].append((match.group(1), float(match.group(2)), float(match.group(3)),
-                                             float(match.group(4))))
-    return lines, solves
+def velocity_components(summary):
+    """summary.json's "velocity components" as a list: ["x", "y"], ["r", "z"] or ["r", "z", "theta"]."""
+    return str(summary.get("velocity components", "")).split()
+
+
+def is_axisymmetric(summary):
+    """Axisymmetric cases solve for the radial and axial components (r z, or r z theta with swirl)."""
+    components = velocity_components(summary)
+    return bool(components) and components[0] == "r"
+
+
+def meshes(summary):
+    """numerics/meshes of summary.json: one dict per mesh, coarsest first, the last is the final mesh."""
+    return list(summary.get("numerics", {}).get("meshes", []) or [])
+
+
+def solves(summary):
+    """numerics/solves of summary.json: every nonlinear solve in order (one per mesh, several under
+    continuation); a solve is a dict with "mesh" (index into meshes), "label", "initial residual"
+    and "iterations" (dicts with "kind", "residual", "step", "linear iterations", "seconds")."""
+    return list(summary.get("numerics", {}).get("solves", []) or [])
 
 
 def read_exit_profile(folder):

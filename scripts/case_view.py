@@ -169,12 +169,13 @@ def log_limits(values):
 
 def draw_yield_overlay(case, view, axes, handles):
     """Unyielded (|tau| < tau_y) hatched with its outline, the |tau| = tau_y contour;
-    with a dead-zone speed fraction, also the dead zone (unyielded or slow)."""
+    with a dead-zone speed fraction, also the dead zone (unyielded or slow). |tau| is the
+    field stress_magnitude = eta gamma_dot = sqrt(tau:tau / 2)."""
     from matplotlib.patches import Patch
     from matplotlib.lines import Line2D
     fields, drawn = case.fields, []
-    if case.yield_stress > 0. and fields.has("von_Mises_stress"):
-        stress = view.scalar(fields["von_Mises_stress"])
+    if case.yield_stress > 0. and fields.has("stress_magnitude"):
+        stress = view.scalar(fields["stress_magnitude"])
         if stress.min() < case.yield_stress:
             axes.tricontourf(view.triangulation, stress, levels=[-1., case.yield_stress], colors=["#d9d9d9"],
                              alpha=0.45, zorder=3)
@@ -191,13 +192,14 @@ def draw_yield_overlay(case, view, axes, handles):
                                   label="yield surface (cavern outline): |tau| = tau_y"))
             drawn.append("cavern outline")
     if case.dead_fraction is not None and fields.has("speed"):
-        reference = case.number(["tip speed"])
+        # The case's definition: slower than the fraction of the impeller tip speed pi N D.
+        tip_speed = case.value("impeller tip speed")
         speed = view.scalar(fields["speed"])
-        reference_speed = reference[1] if reference else float(speed.max())
+        reference_speed = tip_speed if tip_speed else float(speed.max())
         slow = (speed < case.dead_fraction * reference_speed).astype(float)
         dead = slow
-        if case.yield_stress > 0. and fields.has("von_Mises_stress"):
-            unyielded = (view.scalar(fields["von_Mises_stress"]) < case.yield_stress).astype(float)
+        if case.yield_stress > 0. and fields.has("stress_magnitude"):
+            unyielded = (view.scalar(fields["stress_magnitude"]) < case.yield_stress).astype(float)
             dead = numpy.maximum(slow, unyielded)
             slow = slow * (1. - unyielded)  # dotted only where not hatched already
         if dead.max() > 0.5:
@@ -208,7 +210,7 @@ def draw_yield_overlay(case, view, axes, handles):
                             linestyles="dashed", zorder=4)
             handles.append(Line2D([], [], color="black", lw=1.0, ls="--",
                                   label="dead zone outline: unyielded or slower than %g of %s" % (
-                                      case.dead_fraction, "the tip speed" if reference else "the maximum speed")))
+                                      case.dead_fraction, "the tip speed" if tip_speed else "the maximum speed")))
             if slow.max() > 0.5:
                 handles.append(Patch(facecolor="none", hatch="....", edgecolor="black",
                                      label="dotted: yielded but slow (dead)"))

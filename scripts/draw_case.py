@@ -12,9 +12,10 @@ Writes into FOLDER (each file complete or not at all):
   die_profiles.png  pressure along the axis or centreline and wall shear stress along the wall
                     (cases with exit_profile.csv: dies and pipes)
   flow_curve.png    the fluid's flow curve, the shear rates that occur in the case shaded
-  convergence.png   residual and step length against nonlinear iteration (from log.txt)
-  report.html       the case inputs, every design number with its unit, mesh and
-                    convergence facts, cautions and the pictures
+  convergence.png   residual and step length against nonlinear iteration (summary.json's solves)
+  report.html       the cautions, the key design numbers, every design number with its symbol
+                    and unit, the numerics (meshes and solves as tables), the pictures and
+                    the case inputs
 Axisymmetric cases are drawn mirrored about the axis (r -> -r) so the part looks whole.
 The flow curve is evaluated by `lentus flow-curve` ($LENTUS_EXECUTABLE, else ../build/lentus
 next to this script, else lentus on PATH).
@@ -38,6 +39,13 @@ INSTALL_HINT = ("pictures need Python 3 with matplotlib: run scripts/setup, or "
                 "apt-get install python3-matplotlib (or point LENTUS_PYTHON at a Python that has it)")
 
 
+# Design numbers drawn into the pictures, chosen by their symbol in summary.json: the developed
+# wall shear stresses of a die's sections (outer wall, or mandrel and outer wall of an annulus)
+# and the shear rates that mark the flow curve (true wall shear rates, the Metzner-Otto rate).
+WALL_STRESS_SYMBOLS = ("tau_w", "tau_w,i", "tau_w,o")
+SHEAR_RATE_SYMBOLS = ("gamma_w", "gamma_MO")
+
+
 class Case:
     """Everything the pictures need from the folder."""
 
@@ -45,35 +53,35 @@ class Case:
         self.folder = folder
         self.summary = case_folder.read_summary(folder)
         self.inputs, self.changed_inputs = case_folder.read_case(folder)
-        self.log_lines, self.solves = case_folder.read_log(folder)
+        self.solves = case_folder.solves(self.summary)
         self.exit_profile = case_folder.read_exit_profile(folder)
         self.fields = case_folder.read_fields(folder)
         self.numbers = self.summary.get("design numbers", {})
-        self.axisymmetric = str(self.summary.get("formulation", "")).startswith("axisymmetric")
+        self.axisymmetric = case_folder.is_axisymmetric(self.summary)
         self.swirl = self.fields is not None and self.fields.has("swirl_velocity")
-        law = self.inputs.get("Rheology/Viscosity law", self.summary.get("viscosity law", ""))
-        self.yield_stress = self.real("Rheology/%s/Yield stress" % law, 0.)
-        # Dead zones are drawn where the case reports them (vessels), with its speed fraction.
-        self.dead_fraction = None
-        reports_dead_zones = any("dead-zone" in name for name in self.numbers)
-        for key in self.inputs:
-            if reports_dead_zones and "dead" in key.lower() and "fraction" in key.lower():
-                fraction = self.real(key, None)
-                if fraction is not None and 0. < fraction < 1.:
-                    self.dead_fraction = fraction
+        # The law's yield stress at the case temperature (0 without one).
+        self.yield_stress = float(self.summary.get("yield stress [Pa]") or 0.)
+        # Dead zones are drawn where the case reports them (vessels), with its speed fraction (else null).
+        fraction = self.summary.get("dead-zone speed fraction")
+        self.dead_fraction = float(fraction) if fraction is not None else None
 
     def real(self, key, default):
+        """A real value of case.prm by its full key (Section/Subsection/Key)."""
         try:
             return float(self.inputs[key])
         except (KeyError, ValueError):
             return default
 
-    def number(self, words):
-        """The first design number whose name contains every word in `words`."""
-        for name, entry in self.numbers.items():
-            if all(word in name for word in words) and entry.get("value") is not None:
-                return name, float(entry["value"]), entry.get("unit", "")
-        return None
+    def with_symbol(self, symbols):
+        """(name, entry) of every design number whose symbol is one of `symbols`, in summary.json's order."""
+        return [(name, entry) for name, entry in self.numbers.items() if entry.get("symbol") in symbols]
+
+    def value(self, name):
+        """The value of the design number called `name` (its exact name), or None."""
+        entry = self.numbers.get(name)
+        if entry is None or entry.get("value") is None:
+            return None
+        return float(entry["value"])
 
 
 def picture_flow_map(case, view, path):
@@ -217,13 +225,13 @@ def picture_die_profiles(case, path):
              label="pressure " + where)
     top.set_ylabel("pressure p [Pa]")
     top.set_title("Pressure " + where, fontsize=10)
-    stress = fields["von_Mises_stress"] if fields.has("von_Mises_stress") else \
-        fields["viscosity"] * fields["shear_rate"]
+    # At a wall the stress magnitude |tau| = eta gamma_dot = sqrt(tau:tau / 2) is the wall shear stress.
+    stress = fields["stress_magnitude"]
     for index, wall in enumerate(walls):
         bottom.plot(fields.points[wall, axial], stress[wall], color="#D55E00", lw=1.6, marker=".", ms=3,
-                    label="computed at the wall: |tau| = eta gamma_dot" if index == 0 else None)
+                    label="stress magnitude at the wall: |tau| = eta gamma_dot" if index == 0 else None)
     styles = ["--", ":", "-.", (0, (5, 1, 1, 1))]
-    for index, (name, entry) in enumerate(n for n in case.numbers.items() if "wall shear stress" in n[0]):
+    for index, (name, entry) in enumerate(case.with_symbol(WALL_STRESS_SYMBOLS)):
         if entry.get("value") is not None:
             bottom.axhline(float(entry["value"]), color="black", lw=1.0, ls=styles[index % len(styles)],
                            label="%s: %.4g %s" % (name, float(entry["value"]), entry.get("unit", "")))
@@ -279,7 +287,7 @@ def picture_flow_curve(case, path):
         if occurring:
             axes.axvspan(occurring[0], occurring[1], color="#E69F00", alpha=0.25,
                          label="shear rates in this case: %.3g to %.3g 1/s" % occurring)
-    rates = [n for n in case.numbers.items() if n[1].get("unit") == "1/s" and "apparent" not in n[0]]
+    rates = case.with_symbol(SHEAR_RATE_SYMBOLS)
     for index, (name, entry) in enumerate(rates[:4]):
         if entry.get("value") is not None and float(entry["value"]) > 0.:
             stress_axes.axvline(float(entry["value"]), color="black", lw=0.9, ls=["--", ":", "-.", "--"][index],
@@ -300,10 +308,15 @@ def picture_flow_curve(case, path):
     return caption
 
 
+def real(value):
+    """A number of summary.json as a float: null (not finite when written) becomes NaN."""
+    return float("nan") if value is None else float(value)
+
+
 def picture_convergence(case, path):
     import matplotlib.pyplot as pyplot
     if not case.solves:
-        raise ValueError("log.txt holds no nonlinear iterations")
+        raise ValueError("summary.json lists no nonlinear solves (numerics/solves)")
     figure, (top, bottom) = pyplot.subplots(2, 1, figsize=(8.0, 5.6), dpi=110, sharex=True,
                                             gridspec_kw={"height_ratios": [3, 1.3]}, layout="constrained")
     index = 0
@@ -311,23 +324,29 @@ def picture_convergence(case, path):
     labelled = set()
     relative = case.real("Nonlinear solver/Relative tolerance", None)
     absolute = case.real("Nonlinear solver/Absolute tolerance", 0.) or 0.
+    several_meshes = len(case_folder.meshes(case.summary)) > 1
     for solve_number, solve in enumerate(case.solves):
-        xs = [index] + [index + k + 1 for k in range(len(solve["iterations"]))]
-        ys = [solve["initial"]] + [step[1] for step in solve["iterations"]]
+        iterations = solve.get("iterations", [])
+        xs = [index] + [index + k + 1 for k in range(len(iterations))]
+        ys = [real(solve["initial residual"])] + [real(iteration["residual"]) for iteration in iterations]
         top.semilogy(xs, ys, color="0.35", lw=1.0)
-        for k, (kind, residual, step, _) in enumerate(solve["iterations"]):
+        for k, iteration in enumerate(iterations):
+            kind, residual, step = iteration["kind"], real(iteration["residual"]), real(iteration["step"])
             marker, face = markers.get(kind, ("^", "0.5"))
             label = None if kind in labelled else kind + " step"
             labelled.add(kind)
             top.semilogy(xs[k + 1], residual, marker=marker, mfc=face, mec="#0072B2", ls="none", label=label)
             bottom.plot(xs[k + 1], step, marker=marker, mfc=face, mec="#0072B2", ls="none")
         if relative is not None:
-            target = max(relative * solve["initial"], absolute)
+            target = max(relative * real(solve["initial residual"]), absolute)
             top.hlines(target, xs[0], xs[-1], color="#D55E00", lw=1.0, ls="--",
                        label="target (tolerances)" if solve_number == 0 else None)
         if len(case.solves) > 1:
             top.axvline(index, color="0.6", lw=0.7, ls=":")
-            top.text(index, 0.98, " " + solve["label"], fontsize=7, rotation=90, va="top",
+            label = solve.get("label", "")
+            if several_meshes:
+                label = "mesh %d: %s" % (solve.get("mesh", 0) + 1, label)
+            top.text(index, 0.98, " " + label, fontsize=7, rotation=90, va="top",
                      transform=top.get_xaxis_transform())
         index = xs[-1] + 1
     status = case.summary.get("status", "")
@@ -340,7 +359,7 @@ def picture_convergence(case, path):
     bottom.set_ylim(0., 1.1)
     bottom.grid(True, alpha=0.3)
     save(figure, path)
-    return "Residual and line-search step length at every Picard and Newton step (from log.txt)"
+    return "Residual and line-search step length at every Picard and Newton step of every solve"
 
 
 def draw_all(case):

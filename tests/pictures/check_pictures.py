@@ -4,8 +4,13 @@
   check_pictures.py folder FOLDER [--swirl-outline]
       The pictures a case folder supports exist and are not blank, every picture the
       report shows exists, and report.html holds every design number of summary.json
-      (name, value to its 6 printed digits, unit), every numerics entry, the status and
-      the caution. --swirl-outline: also the swirl-speed picture with a cavern outline.
+      (name, symbol, value to its 6 printed digits, unit; the key ones also as cards at the
+      top), every numerics entry, a row per mesh and per solve, the status, the caution
+      and the case cautions. --swirl-outline: also the swirl-speed picture with a cavern outline.
+  check_pictures.py browser FOLDER [--width PX] [--screenshot PNG]
+      report.html in headless Chromium at PX (1280) px wide: no horizontal overflow, every
+      design number's row and key card inside the window and visible, no name wrapped onto
+      more than two lines. Exit 77 (skipped) when chromium is not installed.
   check_pictures.py run LENTUS WORKDIR FOLDER [--env NAME=VALUE]... [--stderr TEXT]...
                     [--present FILE]... [--absent FILE]... -- RUN-ARGUMENTS...
       Runs `LENTUS run RUN-ARGUMENTS --output FOLDER` in WORKDIR with the environment
@@ -19,6 +24,9 @@ import re
 import shutil
 import subprocess
 import sys
+import tempfile
+
+SKIP = 77  # ctest's SKIP_RETURN_CODE of the browser checks
 
 # Not blank: the variance of the grey levels (0..1) of a picture must be above a floor.
 # Floors (common practice: set from a measurement, not a published value): a white page
@@ -80,19 +88,28 @@ def check_folder(folder, swirl_outline):
             fail("%s looks blank: grey-level variance %.4f, floor %.4f" % (path, variance, floor))
         print("%-18s variance %.4f (floor %.3f)" % (name, variance, floor))
 
-    # Every design number: its row holds the name, the value to 6 significant digits and the unit.
-    rows = {html.unescape(name): (html.unescape(value), html.unescape(unit)) for name, value, unit in re.findall(
-        r'<tr><td>([^<]*)</td><td class="value">([^<]*)</td><td>([^<]*)</td></tr>', report)}
+    # Every design number: its row holds the name, the symbol, the value to its 6 printed digits
+    # and the unit; every key number also has its card at the top.
+    rows = {}
+    for name, cells in re.findall(r'<tr class="number[^"]*" data-design-number="([^"]*)">(.*?)</tr>', report):
+        cell = dict((kind, html.unescape(text)) for kind, text in re.findall(r'<td class="(\w+)">([^<]*)</td>', cells))
+        rows[html.unescape(name)] = cell
+    cards = {html.unescape(name) for name in re.findall(r'data-key-number="([^"]*)"', report)}
     numbers = summary["design numbers"]
     if not numbers:
         fail("summary.json has no design numbers")
     for name, entry in numbers.items():
         if name not in rows:
             fail("report.html lacks the design number '%s'" % name)
-        text, unit = rows[name]
-        if unit != entry["unit"]:
-            fail("'%s': unit '%s' in the report, '%s' in summary.json" % (name, unit, entry["unit"]))
-        value = entry["value"]
+        row = rows[name]
+        for field in ("unit", "symbol"):
+            if row.get(field, "") != entry.get(field, ""):
+                fail("'%s': %s '%s' in the report, '%s' in summary.json" % (name, field, row.get(field),
+                                                                          entry.get(field)))
+        if entry.get("key", False) != (name in cards):
+            fail("'%s': key %s in summary.json, %s the key numbers of the report" % (
+                name, entry.get("key", False), "among" if name in cards else "not among"))
+        value, text = entry["value"], row.get("value")
         if value is None:
             if text != "not computed":
                 fail("'%s' is null in summary.json but '%s' in the report" % (name, text))
@@ -100,12 +117,26 @@ def check_folder(folder, swirl_outline):
         # Printed with 6 significant digits: relative rounding error at most 5e-6.
         if abs(float(text) - value) > 5.1e-6 * abs(value) + 1e-300:
             fail("'%s': %s in the report, %r in summary.json" % (name, text, value))
-    print("%d design numbers found in report.html" % len(numbers))
-    for key in summary.get("numerics", {}):
-        if ">%s</td>" % html.escape(key) not in report:
+    if len(rows) != len(numbers):
+        fail("report.html shows %d design numbers, summary.json has %d" % (len(rows), len(numbers)))
+    print("%d design numbers (%d key) found in report.html" % (len(numbers), len(cards)))
+    numerics = summary.get("numerics", {})
+    for key, value in numerics.items():
+        if isinstance(value, (list, dict)):
+            continue
+        if 'data-numerics="%s"' % html.escape(key) not in report:
             fail("report.html lacks the numerics entry '%s'" % key)
-    if html.escape(summary["caution"]) not in report:
-        fail("report.html lacks the caution of summary.json")
+    for table, records in (("meshes", numerics.get("meshes", [])), ("solves", numerics.get("solves", []))):
+        match = re.search(r'<table class="%s">(.*?)</table>' % table, report, re.S)
+        n_rows = len(re.findall(r"<tr>", match.group(1))) - 1 if match else 0
+        if n_rows != len(records):
+            fail("report.html's %s table has %d rows, summary.json lists %d" % (table, n_rows, len(records)))
+    caution = summary["caution"]
+    if "fail and hurt people" not in caution:
+        fail("summary.json's caution is not the full one: %s" % caution)
+    for text in [caution] + list(summary.get("case cautions", [])):
+        if html.escape(text) not in report:
+            fail("report.html lacks the caution of summary.json: %s" % text)
     status = "Converged" if summary["converged"] else "NOT CONVERGED"
     if status not in report:
         fail("report.html lacks the status '%s'" % status)
@@ -114,6 +145,130 @@ def check_folder(folder, swirl_outline):
             fail("no swirl speed picture in the report")
         if "cavern outline" not in report:
             fail("the report does not mention the cavern outline")
+
+
+# The layout check run in the page (headless Chromium): the page must not be wider than the window,
+# every design number's row (and key card) must lie inside the window and be visible, and no name may
+# wrap onto more than two lines. The verdict is written into the DOM as JSON for --dump-dom.
+LAYOUT_SCRIPT = """
+<script>
+window.addEventListener("load", function () {
+  var root = document.documentElement, width = root.clientWidth, problems = [], checked = [];
+  if (root.scrollWidth > width)
+    problems.push("the page is " + root.scrollWidth + " px wide in a window of " + width + " px");
+  var all = document.body.getElementsByTagName("*"), wide = [];
+  for (var i = 0; i < all.length && wide.length < 5; ++i) {
+    var box = all[i].getBoundingClientRect();
+    if (box.right > width + 0.5 && !all[i].closest(".scroll"))
+      wide.push(all[i].tagName.toLowerCase() + (all[i].className ? "." + all[i].className : "") + " ends at " +
+                Math.round(box.right) + " px");
+  }
+  if (wide.length) problems.push("beyond the right edge: " + wide.join("; "));
+  document.querySelectorAll(".scroll, pre").forEach(function (element) {
+    if (element.scrollWidth > element.clientWidth + 1)
+      problems.push(element.tagName.toLowerCase() + "." + element.className + " needs scrolling sideways (" +
+                    element.scrollWidth + " px of content in " + element.clientWidth + " px)");
+  });
+  function visible(element, what) {
+    var box = element.getBoundingClientRect();
+    if (box.width <= 0 || box.height <= 0) return what + ": no size";
+    if (box.left < -0.5 || box.right > width + 0.5) return what + ": outside the window (" + Math.round(box.left) +
+      " to " + Math.round(box.right) + " px)";
+    if (element.checkVisibility && !element.checkVisibility({checkOpacity: true, checkVisibilityCSS: true}))
+      return what + ": hidden";
+    return "";
+  }
+  function lines(element) {  // text boxes whose tops differ by more than half a line start new lines
+    var range = document.createRange(), tops = [], count = 0, last = -1e9;
+    range.selectNodeContents(element);
+    var boxes = range.getClientRects(), half = 0.5 * parseFloat(getComputedStyle(element).fontSize);
+    for (var k = 0; k < boxes.length; ++k) tops.push(boxes[k].top);
+    tops.sort(function (a, b) { return a - b; });
+    tops.forEach(function (top) { if (top - last > half) { ++count; last = top; } });
+    return count;
+  }
+  document.querySelectorAll("[data-design-number], [data-key-number]").forEach(function (element) {
+    var name = element.getAttribute("data-design-number") || element.getAttribute("data-key-number");
+    var where = element.hasAttribute("data-key-number") ? "key card" : "row";
+    var cells = element.tagName === "TR" ? element.children : [element];
+    for (var c = 0; c < cells.length; ++c) {
+      var problem = visible(cells[c], "'" + name + "' (" + where + ")");
+      if (problem) problems.push(problem);
+    }
+    var label = element.querySelector(".name") || element;
+    if (lines(label) > 2) problems.push("'" + name + "' (" + where + "): the name wraps onto " + lines(label) +
+                                        " lines");
+    checked.push([where, name]);
+  });
+  var verdict = document.createElement("pre");
+  verdict.id = "layout-verdict";
+  verdict.textContent = JSON.stringify({width: width, scrollWidth: root.scrollWidth, problems: problems,
+                                        checked: checked});
+  document.body.appendChild(verdict);
+});
+</script>
+"""
+
+
+def chromium():
+    for name in ("chromium", "chromium-browser", "google-chrome"):
+        path = shutil.which(name)
+        if path:
+            return path
+    return None
+
+
+def run_chromium(browser, width, profile, extra):
+    command = [browser, "--headless", "--no-sandbox", "--disable-gpu", "--user-data-dir=" + profile,
+               "--window-size=%d,2000" % width, "--virtual-time-budget=10000"] + extra
+    result = subprocess.run(command, capture_output=True, text=True, check=False, timeout=180)
+    if result.returncode != 0:
+        fail("%s exited with %d: %s" % (" ".join(command), result.returncode, result.stderr[-2000:]))
+    return result.stdout
+
+
+def check_browser(folder, width, screenshot):
+    """report.html of FOLDER in headless Chromium at WIDTH px: no horizontal overflow, every design
+    number of summary.json (and every key number) inside the window and visible."""
+    browser = chromium()
+    if browser is None:
+        print("SKIPPED: chromium is not installed (apt-get install chromium): report.html layout not checked")
+        sys.exit(SKIP)
+    with open(os.path.join(folder, "summary.json"), encoding="utf-8") as handle:
+        summary = json.load(handle)
+    with open(os.path.join(folder, "report.html"), encoding="utf-8") as handle:
+        page = handle.read()
+    if "</body>" not in page:
+        fail("report.html has no </body>")
+    probe = os.path.join(folder, ".report_layout_check.html")  # beside report.html: the pictures load
+    with open(probe, "w", encoding="utf-8") as handle:
+        handle.write(page.replace("</body>", LAYOUT_SCRIPT + "</body>"))
+    profile = tempfile.mkdtemp(prefix="lentus_chromium_")
+    try:
+        dom = run_chromium(browser, width, profile, ["--dump-dom", "file://" + os.path.abspath(probe)])
+        if screenshot:
+            run_chromium(browser, width, profile, ["--screenshot=" + os.path.abspath(screenshot),
+                                                   "file://" + os.path.abspath(os.path.join(folder, "report.html"))])
+            print("screenshot: %s" % screenshot)
+    finally:
+        shutil.rmtree(profile, ignore_errors=True)
+        os.remove(probe)
+    match = re.search(r'<pre id="layout-verdict">(.*?)</pre>', dom, re.S)
+    if not match:
+        fail("the layout check did not run in Chromium (no verdict in the page)")
+    verdict = json.loads(html.unescape(match.group(1)))
+    print("window %d px (%d px inside the scroll bar), page %d px wide; %d rows and cards checked" % (
+        width, verdict["width"], verdict["scrollWidth"], len(verdict["checked"])))
+    rows = {name for where, name in verdict["checked"] if where == "row"}
+    cards = {name for where, name in verdict["checked"] if where == "key card"}
+    numbers = summary["design numbers"]
+    missing = [name for name in numbers if name not in rows]
+    missing += ["%s (key card)" % name for name, entry in numbers.items() if entry.get("key") and name not in cards]
+    problems = verdict["problems"] + ["'%s' is not in the page" % name for name in missing]
+    if problems:
+        fail("report.html at %d px:\n  %s" % (width, "\n  ".join(problems)))
+    print("%d design numbers (%d key) inside the %d px window and visible; no horizontal overflow" % (
+        len(rows), len(cards), verdict["width"]))
 
 
 def run_lentus(arguments):
@@ -146,6 +301,10 @@ def main():
     folder = commands.add_parser("folder")
     folder.add_argument("folder")
     folder.add_argument("--swirl-outline", action="store_true")
+    browser = commands.add_parser("browser")
+    browser.add_argument("folder")
+    browser.add_argument("--width", type=int, default=1280)
+    browser.add_argument("--screenshot")
     run = commands.add_parser("run")
     run.add_argument("lentus")
     run.add_argument("workdir")
@@ -159,6 +318,8 @@ def main():
     arguments = parser.parse_args(argv[:split])
     if arguments.command == "folder":
         check_folder(arguments.folder, arguments.swirl_outline)
+    elif arguments.command == "browser":
+        check_browser(arguments.folder, arguments.width, arguments.screenshot)
     else:
         arguments.run_arguments = argv[split + 1:]
         run_lentus(arguments)
