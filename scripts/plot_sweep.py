@@ -9,10 +9,13 @@ KEY a varied key as written in the sweep file ("Boundary conditions/Inflow rates
 Converged cases are filled markers; cases that did not converge are hollow markers
 (their last iterate); bad-input and crashed cases have no numbers and are left out.
 Logarithmic axes are chosen when positive values span a factor of 10 (x) or 20 (y) or more.
+The picture carries the caution of the table's "caution" column (the full caution of
+solver/report/caution.h), drawn under the axes and in the PNG's Description.
 """
 import argparse
 import csv
 import sys
+import textwrap
 
 import matplotlib
 
@@ -56,6 +59,9 @@ def main():
     x_column = column(header, options.against)
     c_column = column(header, options.curves) if options.curves else None
     status_column = column(header, "status")
+    if not rows:
+        sys.exit("plot_sweep.py: the results table has no rows")
+    caution = "Caution: " + rows[0][column(header, "caution")]
 
     curves = {}
     for row in rows:
@@ -100,10 +106,11 @@ def main():
         axis.legend(fontsize=8)
     hollow = any(not p[2] for points in curves.values() for p in points)
     axis.set_title(options.number + (" (hollow: not converged)" if hollow else ""), fontsize=10)
-    figure.text(0.01, 0.005, "Model estimates: check against measurements before relying on them.",
-                fontsize=7, color="#555555")
-    figure.tight_layout(rect=(0, 0.03, 1, 1))
-    figure.savefig(options.output, format="png")
+    # The full caution under the axes, wrapped to the figure's width (about 125 characters at 6.5 pt).
+    lines = textwrap.wrap(caution, 125)
+    figure.text(0.01, 0.008, "\n".join(lines), fontsize=6.5, color="#333333", va="bottom", ha="left")
+    figure.tight_layout(rect=(0, 0.03 + 0.028 * len(lines), 1, 1))
+    figure.savefig(options.output, format="png", metadata={"Description": caution})
     return 0
 
 

@@ -2,9 +2,12 @@
 
 #include "rheology/law_registry.h"
 
+#include <nlohmann/json.hpp>
+
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <cstdlib>
 #include <sstream>
 
 namespace lentus::rheology::fit
@@ -28,36 +31,14 @@ namespace lentus::rheology::fit
       return text.size() >= width ? text + " " : text + std::string(width - text.size(), ' ');
     }
 
-    std::string json_string(const std::string &text)
-    {
-      std::string result = "\"";
-      for (const char c : text)
-        switch (c)
-          {
-            case '"': result += "\\\""; break;
-            case '\\': result += "\\\\"; break;
-            case '\n': result += "\\n"; break;
-            case '\t': result += "\\t"; break;
-            default:
-              if (static_cast<unsigned char>(c) < 0x20)
-                {
-                  char buffer[8];
-                  std::snprintf(buffer, sizeof buffer, "\\u%04x", c);
-                  result += buffer;
-                }
-              else
-                result += c;
-          }
-      return result + "\"";
-    }
-
-    std::string json_number(const double value)
+    /// A number as JSON with the 10 significant digits fit.json has always had; null if not finite.
+    nlohmann::ordered_json json_number(const double value)
     {
       if (!std::isfinite(value))
-        return "null";
+        return nullptr;
       char buffer[40];
       std::snprintf(buffer, sizeof buffer, "%.10g", value);
-      return buffer;
+      return std::strtod(buffer, nullptr);
     }
 
     std::string shift_text(const LawFit &fit)
@@ -216,76 +197,83 @@ namespace lentus::rheology::fit
 
   std::string json_report(const FlowCurveData &data, const std::vector<LawFit> &fits, const FitOptions &options)
   {
-    std::ostringstream json;
-    json << "{\n  \"data\": {\"file\": " << json_string(data.source) << ", \"points\": " << data.points.size()
-         << ", \"shear rate range [1/s]\": [" << json_number(shear_rate_min(data)) << ", "
-         << json_number(shear_rate_max(data)) << "], \"temperatures [K]\": [";
-    const auto temperatures = data.temperatures();
-    for (std::size_t i = 0; i < temperatures.size(); ++i)
-      json << (i ? ", " : "") << json_number(temperatures[i]);
-    json << "]},\n  \"method\": " << json_string(method) << ",\n  \"confidence\": " << json_number(options.confidence)
-         << ",\n  \"ranking\": \"AIC, lower is better\",\n  \"caution\": " << json_string(caution) << ",\n  \"laws\": [";
+    using json = nlohmann::ordered_json;
+    json temperatures = json::array();
+    for (const double temperature : data.temperatures())
+      temperatures.push_back(json_number(temperature));
+    json report;
+    report["data"] = {{"file", data.source},
+                      {"points", data.points.size()},
+                      {"shear rate range [1/s]", {json_number(shear_rate_min(data)), json_number(shear_rate_max(data))}},
+                      {"temperatures [K]", temperatures}};
+    report["method"]     = method;
+    report["confidence"] = json_number(options.confidence);
+    report["ranking"]    = "AIC, lower is better";
+    report["caution"]    = caution;
 
     auto estimate_json = [](const Estimate &estimate) {
-      std::ostringstream item;
-      item << "{\"key\": " << json_string(estimate.key) << ", \"path\": " << json_string(estimate.path)
-           << ", \"symbol\": " << json_string(estimate.symbol) << ", \"unit\": " << json_string(estimate.unit)
-           << ", \"value\": " << json_number(estimate.value)
-           << ", \"standard error\": " << json_number(estimate.standard_error)
-           << ", \"lower\": " << json_number(estimate.lower) << ", \"upper\": " << json_number(estimate.upper) << "}";
-      return item.str();
+      return json{{"key", estimate.key},
+                  {"path", estimate.path},
+                  {"symbol", estimate.symbol},
+                  {"unit", estimate.unit},
+                  {"value", json_number(estimate.value)},
+                  {"standard error", json_number(estimate.standard_error)},
+                  {"lower", json_number(estimate.lower)},
+                  {"upper", json_number(estimate.upper)}};
     };
 
-    int rank = 0;
-    for (std::size_t f = 0; f < fits.size(); ++f)
+    json laws = json::array();
+    int  rank = 0;
+    for (const LawFit &fit : fits)
       {
-        const LawFit &fit = fits[f];
-        json << (f ? "," : "") << "\n    {\"law\": " << json_string(fit.law) << ", \"fitted\": "
-             << (fit.fitted ? "true" : "false");
+        json law = {{"law", fit.law}, {"fitted", fit.fitted}};
         if (!fit.fitted)
           {
-            json << ", \"failure\": " << json_string(fit.failure) << "}";
+            law["failure"] = fit.failure;
+            laws.push_back(law);
             continue;
           }
-        json << ", \"rank\": " << ++rank << ", \"temperature shift\": " << json_string(fit.shift_name)
-             << ", \"reference temperature [K]\": " << json_number(fit.reference_temperature)
-             << ", \"points\": " << fit.n_points << ", \"parameters fitted\": " << fit.n_parameters
-             << ", \"rms log residual\": " << json_number(fit.rms_log) << ", \"aic\": " << json_number(fit.aic)
-             << ", \"bic\": " << json_number(fit.bic) << ", \"akaike weight\": " << json_number(fit.akaike_weight)
-             << ", \"iterations\": " << fit.iterations << ",\n     \"parameters\": [";
-        for (std::size_t i = 0; i < fit.estimates.size(); ++i)
-          json << (i ? ",\n       " : "\n       ") << estimate_json(fit.estimates[i]);
-        json << "],\n     \"correlation\": [";
-        const std::size_t p = fit.estimates.size();
+        law["rank"]                       = ++rank;
+        law["temperature shift"]          = fit.shift_name;
+        law["reference temperature [K]"]  = json_number(fit.reference_temperature);
+        law["points"]                     = fit.n_points;
+        law["parameters fitted"]          = fit.n_parameters;
+        law["rms log residual"]           = json_number(fit.rms_log);
+        law["aic"]                        = json_number(fit.aic);
+        law["bic"]                        = json_number(fit.bic);
+        law["akaike weight"]              = json_number(fit.akaike_weight);
+        law["iterations"]                 = fit.iterations;
+        json parameters                   = json::array();
+        for (const Estimate &estimate : fit.estimates)
+          parameters.push_back(estimate_json(estimate));
+        law["parameters"] = parameters;
+        const std::size_t p           = fit.estimates.size();
+        json              correlation = json::array();
         for (std::size_t i = 0; i < p; ++i)
           {
-            json << (i ? ", " : "") << "[";
+            json row = json::array();
             for (std::size_t j = 0; j < p; ++j)
-              json << (j ? ", " : "") << json_number(fit.correlation[i * p + j]);
-            json << "]";
+              row.push_back(json_number(fit.correlation[i * p + j]));
+            correlation.push_back(row);
           }
-        json << "],\n     \"case values\": {";
-        bool first = true;
+        law["correlation"] = correlation;
+        json case_values   = json::object();
         for (const auto &[key, value] : fit.law_values)
-          {
-            json << (first ? "" : ", ") << json_string(key) << ": " << json_number(value);
-            first = false;
-          }
+          case_values[key] = json_number(value);
         for (const auto &[key, value] : fit.shift_values)
-          json << ", " << json_string(fit.shift_name + "/" + key) << ": " << json_number(value);
-        json << "},\n     \"shift factors\": [";
-        for (std::size_t i = 0; i < fit.shift_factors.size(); ++i)
-          json << (i ? ", " : "") << estimate_json(fit.shift_factors[i]);
-        json << "],\n     \"warnings\": [";
-        for (std::size_t i = 0; i < fit.warnings.size(); ++i)
-          json << (i ? ", " : "") << json_string(fit.warnings[i]);
-        json << "],\n     \"notes\": [";
-        for (std::size_t i = 0; i < fit.fixed_notes.size(); ++i)
-          json << (i ? ", " : "") << json_string(fit.fixed_notes[i]);
-        json << "]}";
+          case_values[fit.shift_name + "/" + key] = json_number(value);
+        law["case values"] = case_values;
+        json shift_factors = json::array();
+        for (const Estimate &factor : fit.shift_factors)
+          shift_factors.push_back(estimate_json(factor));
+        law["shift factors"] = shift_factors;
+        law["warnings"]      = fit.warnings;
+        law["notes"]         = fit.fixed_notes;
+        laws.push_back(law);
       }
-    json << "\n  ]\n}\n";
-    return json.str();
+    report["laws"] = laws;
+    // Invalid UTF-8 (a file name in another encoding) becomes U+FFFD instead of an exception.
+    return report.dump(2, ' ', false, json::error_handler_t::replace) + "\n";
   }
 
   std::string plot_table(const FlowCurveData &data, const std::vector<LawFit> &fits, const std::size_t curves)

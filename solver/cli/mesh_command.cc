@@ -8,7 +8,8 @@
 #include "solver/errors.h"
 #include "solver/input/case_schema.h"
 #include "solver/input/flow_case.h"
-#include "solver/report/atomic_file.h"
+#include "solver/report/case_folder.h"
+#include "solver/report/json_text.h"
 
 #include <deal.II/base/mpi.h>
 #include <deal.II/distributed/tria.h>
@@ -24,6 +25,8 @@
 #include <iostream>
 #include <map>
 #include <sstream>
+
+#include <nlohmann/json.hpp>
 
 namespace lentus::cli
 {
@@ -45,14 +48,6 @@ out/<case name>_mesh):
 On P ranks the partition is the one `lentus run` uses on P ranks.
 Exit codes: 0 written, 2 bad input (nothing written).
 )";
-
-    std::string json_string(const std::string &text)
-    {
-      std::string out = "\"";
-      for (const char c : text)
-        out += c == '"' ? std::string("\\\"") : c == '\\' ? std::string("\\\\") : std::string(1, c);
-      return out + "\"";
-    }
 
     std::string number(const double value)
     {
@@ -118,15 +113,10 @@ Exit codes: 0 written, 2 bad input (nothing written).
     input::FlowCase       flow;
     input::read_geometry(file, flow);
 
-    const std::filesystem::path folder(arguments.options.count("--output") ? arguments.options.at("--output") :
-                                                                              "out/" + flow.case_name + "_mesh");
-    // The folder is replaced: refuse one that holds anything but an earlier preview.
-    if (std::filesystem::exists(folder) &&
-        (!std::filesystem::is_directory(folder) ||
-         (!std::filesystem::is_empty(folder) && !std::filesystem::exists(folder / "mesh.json"))))
-      throw InputError("--output = " + folder.string() +
-                       ": exists and is not a Lentus mesh preview (no mesh.json); it would be replaced; allowed: a "
-                       "new folder, or one written by an earlier lentus mesh");
+    const std::string folder = arguments.options.count("--output") ? arguments.options.at("--output") :
+                                                                     "out/" + flow.case_name + "_mesh";
+    // Replaces only an earlier preview (it holds mesh.json); appears whole or not at all.
+    report::CaseFolder case_folder(folder, "mesh.json", "--output", comm);
 
     parallel::distributed::Triangulation<2> triangulation(comm);
     flow.geometry->create_mesh(triangulation, flow.refinement);
@@ -162,19 +152,12 @@ Exit codes: 0 written, 2 bad input (nothing written).
       }
     const auto gathered = Utilities::MPI::gather(comm, local_sides, 0);
 
-    const std::filesystem::path partial = folder.string() + ".partial";
-    if (rank == 0)
-      {
-        std::filesystem::remove_all(partial);
-        std::filesystem::create_directories(partial);
-      }
-    MPI_Barrier(comm);
     DataOut<2> data_out;
     data_out.attach_triangulation(triangulation);
     data_out.add_data_vector(partition, "partition", DataOut<2>::type_cell_data);
     data_out.add_data_vector(material, "material", DataOut<2>::type_cell_data);
     data_out.build_patches();
-    data_out.write_vtu_in_parallel((partial / "mesh_cells.vtu").string(), comm);
+    data_out.write_vtu_in_parallel(case_folder.staging() + "mesh_cells.vtu", comm);
 
     if (rank == 0)
       {
@@ -220,15 +203,17 @@ Exit codes: 0 written, 2 bad input (nothing written).
                     flow.velocity_degree - 1, n_velocity);
         std::printf("  boundary roles:\n    %3s  %-20s %8s %14s%s\n", "id", "role", "sides", "length [m]",
                     axisymmetric ? "      area [m^2]" : "");
-        std::ostringstream json;
-        json << "{\n  \"case\": " << json_string(flow.case_file) << ",\n  \"shape\": " << json_string(flow.shape_name);
+        using json   = nlohmann::ordered_json;
+        json summary = {{"case", flow.case_file}, {"shape", flow.shape_name}};
         if (!flow.mesh_file.empty())
-          json << ",\n  \"mesh file\": " << json_string(flow.mesh_file);
-        json << ",\n  \"refinement\": " << flow.refinement << ",\n  \"formulation\": "
-             << json_string(to_string(flow.formulation)) << ",\n  \"cells\": " << triangulation.n_global_active_cells()
-             << ",\n  \"unknowns\": " << dof_handler.n_dofs() << ",\n  \"velocity degree\": " << flow.velocity_degree
-             << ",\n  \"ranks\": " << Utilities::MPI::n_mpi_processes(comm) << ",\n  \"roles\": [";
-        bool first_role = true;
+          summary["mesh file"] = flow.mesh_file;
+        summary["refinement"]          = flow.refinement;
+        summary["velocity components"] = to_string(flow.formulation);
+        summary["cells"]               = triangulation.n_global_active_cells();
+        summary["unknowns"]            = dof_handler.n_dofs();
+        summary["velocity degree"]     = flow.velocity_degree;
+        summary["ranks"]               = Utilities::MPI::n_mpi_processes(comm);
+        json roles_json                = json::array();
         for (const auto &[id, name] : names)
           {
             const RoleSum sum = sums.count(id) ? sums.at(id) : RoleSum();
@@ -237,47 +222,38 @@ Exit codes: 0 written, 2 bad input (nothing written).
               std::snprintf(area, sizeof area, "  %14s", rheology::format_short(sum.area).c_str());
             std::printf("    %3u  %-20s %8zu %14s%s\n", id, name.c_str(), sum.sides,
                         rheology::format_short(sum.length).c_str(), area);
-            json << (first_role ? "" : ",") << "\n    {\"id\": " << id << ", \"name\": " << json_string(name)
-                 << ", \"sides\": " << sum.sides << ", \"length [m]\": " << number(sum.length);
+            json role = {
+              {"id", id}, {"name", name}, {"sides", sum.sides}, {"length [m]", report::json_number(sum.length)}};
             if (axisymmetric)
-              json << ", \"area [m^2]\": " << number(sum.area);
-            json << "}";
-            first_role = false;
+              role["area [m^2]"] = report::json_number(sum.area);
+            roles_json.push_back(role);
           }
-        json << "\n  ]";
+        summary["roles"] = roles_json;
         if (!materials.empty())
           {
             std::printf("  materials:");
-            json << ",\n  \"materials\": [";
-            bool first_material = true;
+            json materials_json = json::array();
             for (const auto &[id, name] : materials)
               {
                 std::printf(" %u = %s;", id, name.c_str());
-                json << (first_material ? "" : ",") << "\n    {\"id\": " << id << ", \"name\": " << json_string(name)
-                     << "}";
-                first_material = false;
+                materials_json.push_back(json{{"id", id}, {"name", name}});
               }
             std::printf("\n");
-            json << "\n  ]";
+            summary["materials"] = materials_json;
           }
-        json << "\n}\n";
 
-        report::write_file_atomically((partial / "mesh_boundary.vtu").string(), boundary_vtu(sides));
-        report::write_file_atomically((partial / "mesh.json").string(), json.str());
-        report::write_file_atomically((partial / "mesh.pvd").string(),
-                                      "<?xml version=\"1.0\"?>\n<VTKFile type=\"Collection\" version=\"0.1\">\n"
+        case_folder.write("mesh_boundary.vtu", boundary_vtu(sides));
+        case_folder.write("mesh.json", report::json_text(summary, true) + "\n");
+        case_folder.write("mesh.pvd", "<?xml version=\"1.0\"?>\n<VTKFile type=\"Collection\" version=\"0.1\">\n"
                                       "<Collection>\n"
                                       "  <DataSet part=\"0\" name=\"cells\" file=\"mesh_cells.vtu\"/>\n"
                                       "  <DataSet part=\"1\" name=\"boundary\" file=\"mesh_boundary.vtu\"/>\n"
                                       "</Collection>\n</VTKFile>\n");
-        std::filesystem::remove_all(folder);
-        if (folder.has_parent_path())
-          std::filesystem::create_directories(folder.parent_path());
-        std::filesystem::rename(partial, folder);
-        std::printf("Written: %s (cells with partition and material; boundary sides with role id), mesh.json\n",
-                    (folder / "mesh.pvd").c_str());
       }
-    MPI_Barrier(comm);
+    case_folder.commit();
+    if (rank == 0)
+      std::printf("Written: %s (cells with partition and material; boundary sides with role id), mesh.json\n",
+                  (std::filesystem::path(folder) / "mesh.pvd").c_str());
     return 0;
   }
 } // namespace lentus::cli

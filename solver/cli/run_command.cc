@@ -6,6 +6,7 @@
 #include "solver/flow/flow_run.h"
 #include "solver/input/case_schema.h"
 #include "solver/input/flow_case.h"
+#include "solver/report/caution_text.h"
 
 #include <deal.II/base/mpi.h>
 
@@ -24,7 +25,8 @@ namespace lentus::cli
                      "unyielded indicator, partition), summary.json (design numbers with units), log.txt, case.prm,\n"
                      "and PNG pictures with report.html (scripts/draw_case.py, needs python3-matplotlib; off with\n"
                      "--no-pictures or Output/Write pictures = false; a drawing failure is only a warning).\n"
-                     "Exit codes: 0 converged, 2 bad input, 3 not converged (the last iterate is still written).\n";
+                     "Exit codes: 0 converged, 2 bad input, 3 not converged (the last iterate is still written).\n\n"
+                  << report::caution_lines();
         return 0;
       }
     if (arguments.positional.size() != 1)

@@ -5,6 +5,7 @@
 #include "solver/cli/commands.h"
 #include "solver/errors.h"
 #include "solver/report/atomic_file.h"
+#include "solver/report/caution_text.h"
 
 #include <algorithm>
 #include <iomanip>
@@ -89,7 +90,8 @@ namespace lentus::cli
            << "# " << shape.description << ".\n"
            << "# The example values are placeholders: set your fluid, dimensions and conditions, then\n"
            << "#   lentus check THIS_FILE && lentus run THIS_FILE\n"
-           << "# Units are SI. Results are estimates from a model: check them against measurements.\n\n"
+           << "# Units are SI.\n"
+           << report::caution_lines("# ") << "\n"
            << "subsection Rheology\n"
            << set_line("  ", "Viscosity law", "Newtonian", "lentus laws lists every law and its keys")
            << set_line("  ", "Density", "1000", "kg/m^3")

@@ -4,6 +4,7 @@
 #include "solver/cli/commands.h"
 #include "solver/errors.h"
 #include "solver/input/case_schema.h"
+#include "solver/report/caution_text.h"
 #include "solver/sweep/sweep_file.h"
 #include "solver/sweep/sweep_runner.h"
 
@@ -39,11 +40,11 @@ runs; every case is validated first (an invalid one is recorded as bad input).
 
 Results folder: cases/<case id>/ (each case's own results), rows/<case id>.txt (its line of
 the table, written whole), results.csv and results.jsonl (case, varied values, status,
-reason, design numbers with units, Newton iterations, wall time), plan.txt, plot.png.
+reason, design numbers with units, Newton iterations, wall time, and the caution on every
+row), plan.txt, plot.png.
 Started again on the same folder, a sweep keeps finished cases and runs the others.
 Exit codes: 0 every case has its row (failed ones included), 2 bad sweep file;
 array mode: the case's own code (0, 2, 3; 1 crashed).
-Results are estimates from a model: check them against measurements.
 )";
 
     const char *collect_help =
@@ -74,7 +75,7 @@ Exit codes: 0 every case has a result, 1 some are missing, 2 bad sweep file.
                       {"--help", "--count", "--solver-output"});
     if (arguments.has("--help"))
       {
-        std::cout << sweep_help;
+        std::cout << sweep_help << "\n" << report::caution_lines();
         return exit_code::success;
       }
     if (arguments.positional.size() != 1)
@@ -142,7 +143,7 @@ Exit codes: 0 every case has a result, 1 some are missing, 2 bad sweep file.
     const Arguments arguments = parse_arguments(argc, argv, first, {"--output", "--base"}, {"--help"});
     if (arguments.has("--help"))
       {
-        std::cout << collect_help;
+        std::cout << collect_help << "\n" << report::caution_lines();
         return exit_code::success;
       }
     if (arguments.positional.size() != 1)

@@ -24,38 +24,67 @@ namespace lentus::flow
         throw std::runtime_error(std::string("PETSc failed in ") + what + " (error " + std::to_string(code) + ")");
     }
 
-    /// Owned indices of one field as a PETSc index set.
-    IS field_index_set(const Discretization &mesh, const ComponentMask &mask)
+    /// Holds one PETSc object and destroys it when it goes out of scope, also when a check throws.
+    template <typename Object, PetscErrorCode (*destroy)(Object *)>
+    class Owned
+    {
+    public:
+      Owned() = default;
+      ~Owned()
+      {
+        if (object)
+          destroy(&object);
+      }
+      Owned(const Owned &)            = delete;
+      Owned &operator=(const Owned &) = delete;
+
+      Object get() const { return object; }
+      /// For the Create calls that fill it in.
+      Object *out() { return &object; }
+
+    private:
+      Object object = nullptr;
+    };
+
+    using OwnedKSP = Owned<KSP, KSPDestroy>;
+    using OwnedIS  = Owned<IS, ISDestroy>;
+    using OwnedMat = Owned<Mat, MatDestroy>;
+
+    /// Owned indices of one field as a PETSc index set, into `is`.
+    void field_index_set(const Discretization &mesh, const ComponentMask &mask, OwnedIS &is)
     {
       const IndexSet            field = DoFTools::extract_dofs(mesh.dof_handler, mask) & mesh.owned;
       std::vector<PetscInt>     indices;
       for (const auto index : field)
         indices.push_back(static_cast<PetscInt>(index));
-      IS is;
-      check(ISCreateGeneral(mesh.comm, static_cast<PetscInt>(indices.size()), indices.data(), PETSC_COPY_VALUES, &is),
+      check(ISCreateGeneral(mesh.comm, static_cast<PetscInt>(indices.size()), indices.data(), PETSC_COPY_VALUES,
+                            is.out()),
             "ISCreateGeneral");
-      return is;
     }
   } // namespace
 
   unsigned int solve_linear(const Physics &physics, const Discretization &mesh, LinearSystem &system,
                             Vector &update, const bool direct, const double relative_tolerance)
   {
-    KSP ksp;
-    PC  pc;
-    check(KSPCreate(mesh.comm, &ksp), "KSPCreate");
+    OwnedKSP owned_ksp;
+    check(KSPCreate(mesh.comm, owned_ksp.out()), "KSPCreate");
+    const KSP ksp = owned_ksp.get();
+    PC        pc;
     // The prefix must precede the field split, whose sub-solvers inherit it.
     check(KSPSetOptionsPrefix(ksp, "lentus_"), "KSPSetOptionsPrefix");
     check(KSPSetOperators(ksp, system.system_matrix.petsc_matrix(), system.system_matrix.petsc_matrix()),
           "KSPSetOperators");
     check(KSPGetPC(ksp, &pc), "KSPGetPC");
-    IS  velocity_is = nullptr, pressure_is = nullptr;
-    Mat schur_preconditioner = nullptr;
+    OwnedIS  velocity_is, pressure_is;
+    OwnedMat schur_preconditioner;
     if (direct)
       {
         check(KSPSetType(ksp, KSPPREONLY), "KSPSetType");
         check(PCSetType(pc, PCLU), "PCSetType");
         check(PCFactorSetMatSolverType(pc, MATSOLVERMUMPS), "PCFactorSetMatSolverType");
+        // PETSC_OPTIONS with the prefix (e.g. "-lentus_ksp_view") reach the direct solver too;
+        // without such options the solver stays as set above.
+        check(KSPSetFromOptions(ksp), "KSPSetFromOptions");
       }
     else
       {
@@ -64,24 +93,24 @@ namespace lentus::flow
         ComponentMask                    velocity_mask(physics.n_velocity + 1, false);
         for (unsigned int c = 0; c < physics.n_velocity; ++c)
           velocity_mask.set(c, true);
-        velocity_is = field_index_set(mesh, velocity_mask);
+        field_index_set(mesh, velocity_mask, velocity_is);
         // Node-wise numbering (renumber_node_wise): the velocity block is a system of n_velocity unknowns per node.
-        check(ISSetBlockSize(velocity_is, static_cast<PetscInt>(physics.n_velocity)), "ISSetBlockSize");
-        pressure_is = field_index_set(mesh, mesh.fe.component_mask(pressure));
-        check(MatCreateSubMatrix(system.pressure_mass.petsc_matrix(), pressure_is, pressure_is, MAT_INITIAL_MATRIX,
-                                 &schur_preconditioner),
+        check(ISSetBlockSize(velocity_is.get(), static_cast<PetscInt>(physics.n_velocity)), "ISSetBlockSize");
+        field_index_set(mesh, mesh.fe.component_mask(pressure), pressure_is);
+        check(MatCreateSubMatrix(system.pressure_mass.petsc_matrix(), pressure_is.get(), pressure_is.get(),
+                                 MAT_INITIAL_MATRIX, schur_preconditioner.out()),
               "MatCreateSubMatrix");
         // S = -B A^-1 B^T is negative: precondition with -M_p(1/eta).
-        check(MatScale(schur_preconditioner, -1.), "MatScale");
+        check(MatScale(schur_preconditioner.get(), -1.), "MatScale");
         check(KSPSetType(ksp, KSPFGMRES), "KSPSetType");
         check(KSPGMRESSetRestart(ksp, 200), "KSPGMRESSetRestart");
         check(KSPSetTolerances(ksp, relative_tolerance, 1e-30, 1e10, 2000), "KSPSetTolerances");
         check(PCSetType(pc, PCFIELDSPLIT), "PCSetType");
-        check(PCFieldSplitSetIS(pc, "u", velocity_is), "PCFieldSplitSetIS");
-        check(PCFieldSplitSetIS(pc, "p", pressure_is), "PCFieldSplitSetIS");
+        check(PCFieldSplitSetIS(pc, "u", velocity_is.get()), "PCFieldSplitSetIS");
+        check(PCFieldSplitSetIS(pc, "p", pressure_is.get()), "PCFieldSplitSetIS");
         check(PCFieldSplitSetType(pc, PC_COMPOSITE_SCHUR), "PCFieldSplitSetType");
         check(PCFieldSplitSetSchurFactType(pc, PC_FIELDSPLIT_SCHUR_FACT_UPPER), "PCFieldSplitSetSchurFactType");
-        check(PCFieldSplitSetSchurPre(pc, PC_FIELDSPLIT_SCHUR_PRE_USER, schur_preconditioner),
+        check(PCFieldSplitSetSchurPre(pc, PC_FIELDSPLIT_SCHUR_PRE_USER, schur_preconditioner.get()),
               "PCFieldSplitSetSchurPre");
         // Defaults; PETSC_OPTIONS (e.g. "-lentus_fieldsplit_u_pc_type gamg") may override them.
         for (const auto &[name, value] : {std::pair<const char *, const char *>{"-lentus_fieldsplit_u_ksp_type", "preonly"},
@@ -104,13 +133,6 @@ namespace lentus::flow
     PetscInt           iterations = 0;
     KSPGetConvergedReason(ksp, &reason);
     KSPGetIterationNumber(ksp, &iterations);
-    KSPDestroy(&ksp);
-    if (velocity_is)
-      ISDestroy(&velocity_is);
-    if (pressure_is)
-      ISDestroy(&pressure_is);
-    if (schur_preconditioner)
-      MatDestroy(&schur_preconditioner);
     if (solved != 0 || reason < 0)
       throw NoConvergence(std::string(direct ? "the direct solver (MUMPS)" : "FGMRES") +
                           " failed on the linearized system (PETSc reason " + std::to_string(int(reason)) +

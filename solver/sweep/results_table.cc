@@ -2,6 +2,8 @@
 
 #include "solver/input/value_kind.h"
 #include "solver/report/atomic_file.h"
+#include "solver/report/caution.h"
+#include "solver/report/json_text.h"
 #include "solver/sweep/sweep_file.h"
 
 #include <cmath>
@@ -9,6 +11,8 @@
 #include <filesystem>
 #include <fstream>
 #include <sstream>
+
+#include <nlohmann/json.hpp>
 
 namespace lentus::sweep
 {
@@ -58,9 +62,10 @@ namespace lentus::sweep
       return buffer;
     }
 
+    /// A cell per RFC 4180: quoted when it holds a comma, a quote or a line break; quotes doubled.
     std::string csv_cell(const std::string &text)
     {
-      if (text.find_first_of(",\"\n") == std::string::npos)
+      if (text.find_first_of(",\"\r\n") == std::string::npos)
         return text;
       std::string out = "\"";
       for (const char c : text)
@@ -68,35 +73,15 @@ namespace lentus::sweep
       return out + "\"";
     }
 
-    std::string json_string(const std::string &text)
-    {
-      std::string out = "\"";
-      for (const char c : text)
-        {
-          if (c == '"' || c == '\\')
-            out += std::string("\\") + c;
-          else if (c == '\n')
-            out += "\\n";
-          else if (c == '\t')
-            out += "\\t";
-          else if (static_cast<unsigned char>(c) < 0x20)
-            out += ' ';
-          else
-            out += c;
-        }
-      return out + "\"";
-    }
-
-    /// A varied value in JSON: a number if it reads as one, else a string.
-    std::string json_value(const std::string &text)
+    /// A varied value in JSON: a number if it reads as one (an integer if it is one), else the text.
+    nlohmann::ordered_json json_value(const std::string &text)
     {
       const auto number = input::parse_real(text);
-      return number && std::isfinite(*number) ? number_text(*number) : json_string(text);
-    }
-
-    std::string json_number(const double value)
-    {
-      return std::isfinite(value) ? number_text(value) : "null";
+      if (!number || !std::isfinite(*number))
+        return text;
+      if (std::abs(*number) < 1e15 && *number == std::round(*number))
+        return static_cast<long long>(*number);
+      return report::json_number(*number);
     }
   } // namespace
 
@@ -225,7 +210,7 @@ namespace lentus::sweep
     csv << ",status,reason";
     for (const auto &[name, unit] : columns)
       csv << "," << csv_cell(name + " [" + unit + "]");
-    csv << ",Newton iterations,wall time [s],ranks,folder\n";
+    csv << ",Newton iterations,wall time [s],ranks,folder,caution\n";
 
     for (const ResultRow &row : rows)
       {
@@ -235,7 +220,7 @@ namespace lentus::sweep
               return v;
           return std::string();
         };
-        csv << row.id;
+        csv << csv_cell(row.id);
         if (with_names)
           csv << "," << csv_cell(row.name);
         for (const std::string &key : varied_keys)
@@ -250,28 +235,34 @@ namespace lentus::sweep
             csv << "," << cell;
           }
         csv << "," << row.newton_iterations << "," << number_text(row.wall_time) << "," << row.ranks << ","
-            << csv_cell(row.folder) << "\n";
+            << csv_cell(row.folder) << "," << csv_cell(report::caution) << "\n";
 
-        jsonl << "{\"case\": " << json_string(row.id) << ", \"index\": " << row.index;
+        using json = nlohmann::ordered_json;
+        json line;
+        line["case"]  = row.id;
+        line["index"] = row.index;
         if (with_names)
-          jsonl << ", \"name\": " << json_string(row.name);
-        jsonl << ", \"values\": {";
+          line["name"] = row.name;
+        json values = json::object();
         for (std::size_t k = 0; k < varied_keys.size(); ++k)
           {
-            jsonl << (k ? ", " : "") << json_string(varied_keys[k]) << ": {\"value\": ";
             const std::string value = value_of(varied_keys[k]);
-            jsonl << (value.empty() ? std::string("null") : json_value(value)) << ", \"unit\": "
-                  << json_string(varied_units[k]) << "}";
+            values[varied_keys[k]]  = {{"value", value.empty() ? json(nullptr) : json_value(value)},
+                                       {"unit", varied_units[k]}};
           }
-        jsonl << "}, \"status\": " << json_string(row.status) << ", \"reason\": " << json_string(row.reason)
-              << ", \"design numbers\": {";
-        for (std::size_t i = 0; i < row.numbers.size(); ++i)
-          jsonl << (i ? ", " : "") << json_string(row.numbers[i].name)
-                << ": {\"value\": " << json_number(row.numbers[i].value)
-                << ", \"unit\": " << json_string(row.numbers[i].unit) << "}";
-        jsonl << "}, \"Newton iterations\": " << row.newton_iterations
-              << ", \"wall time [s]\": " << json_number(row.wall_time) << ", \"ranks\": " << row.ranks
-              << ", \"folder\": " << json_string(row.folder) << "}\n";
+        line["values"] = values;
+        line["status"] = row.status;
+        line["reason"] = row.reason;
+        json numbers   = json::object();
+        for (const ResultNumber &number : row.numbers)
+          numbers[number.name] = {{"value", report::json_number(number.value)}, {"unit", number.unit}};
+        line["design numbers"]    = numbers;
+        line["Newton iterations"] = row.newton_iterations;
+        line["wall time [s]"]     = report::json_number(row.wall_time);
+        line["ranks"]             = row.ranks;
+        line["folder"]            = row.folder;
+        line["caution"]           = report::caution;
+        jsonl << report::json_text(line, false) << "\n";
       }
     return {csv.str(), jsonl.str()};
   }

@@ -65,9 +65,11 @@ namespace lentus::sweep
   bool read_row(const std::string &results_folder, const std::string &id, std::uint64_t fingerprint, ResultRow &row);
 
   /// The table as CSV (header: case, [name,] each varied key [unit], status, reason,
-  /// each design number [unit], Newton iterations, wall time [s], ranks, folder) and as
-  /// JSON lines (one object per case). Design-number columns: every name any row has,
-  /// in order of first appearance.
+  /// each design number [unit], Newton iterations, wall time [s], ranks, folder, caution;
+  /// cells quoted per RFC 4180) and as JSON lines (one object per case, the same fields).
+  /// Design-number columns: every name any row has, in order of first appearance. Every
+  /// row carries the full caution (solver/report/caution.h), so that it goes wherever a row
+  /// is copied; a file beside the table would stay behind.
   std::pair<std::string, std::string> table_text(const std::vector<ResultRow> &rows,
                                                  const std::vector<std::string> &varied_keys,
                                                  const std::vector<std::string> &varied_units,

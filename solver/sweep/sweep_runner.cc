@@ -5,6 +5,7 @@
 #include "solver/input/case_file.h"
 #include "solver/input/flow_case.h"
 #include "solver/report/atomic_file.h"
+#include "solver/report/caution_text.h"
 #include "solver/report/plotting.h"
 #include "solver/sweep/results_table.h"
 #include "solver/sweep/sweep_file.h"
@@ -33,10 +34,6 @@ namespace lentus::sweep
     {
       return std::chrono::duration<double>(std::chrono::steady_clock::now().time_since_epoch()).count();
     }
-
-    const char *caution = "Results are estimates from a model: check them against measurements. They never replace "
-                          "pressure-relief devices, local pressure-equipment and machinery codes, or review by a "
-                          "licensed engineer.";
 
     /// Sends this process's standard output to a file while it lives (the solver's
     /// per-iteration lines would bury the progress lines; log.txt keeps them).
@@ -252,6 +249,13 @@ namespace lentus::sweep
       std::fflush(stdout);
     }
 
+    /// The full caution, at the end of what a runner, an array task or collect prints.
+    void print_caution()
+    {
+      std::printf("%s", report::caution_lines().c_str());
+      std::fflush(stdout);
+    }
+
     /// Rank 0 prepares the folder; every rank learns whether that worked.
     void prepare_folder(const SweepPlan &plan, const RunnerOptions &options, MPI_Comm world, int &lock_file,
                         std::size_t &done_before, std::size_t &retried)
@@ -376,6 +380,7 @@ namespace lentus::sweep
           write_row(plan.results_folder, row);
           Progress progress(plan, 1);
           print_line(progress.line(row));
+          print_caution();
         }
       return row.status == status::converged     ? exit_code::success :
              row.status == status::not_converged ? exit_code::no_convergence :
@@ -419,7 +424,7 @@ namespace lentus::sweep
               print_line("No plot: scripts/plot_sweep.py failed (see above)");
           }
       }
-    print_line(std::string("Caution: ") + caution);
+    print_caution();
     return report.missing.empty() ? exit_code::success : exit_code::failure;
   }
 

@@ -12,7 +12,9 @@ usage: scenarios.py SCENARIO LENTUS MPIEXEC WORKDIR
 Exits 1 with a message on the first failed check.
 """
 import csv
+import json
 import os
+import struct
 import shutil
 import signal
 import subprocess
@@ -20,6 +22,8 @@ import sys
 import time
 
 HERE = os.path.dirname(os.path.abspath(__file__))
+sys.path.insert(0, os.path.join(os.path.dirname(HERE), "cli"))
+from caution import caution_text, holds_caution  # noqa: E402
 MPI_FLAGS = ["--allow-run-as-root", "--oversubscribe"]
 
 
@@ -65,7 +69,28 @@ def each_case_once(folder, total):
                  if ".partial" in name or ".tmp-" in name]
     check(not leftovers, f"half-written files left: {leftovers}")
     check(not os.listdir(os.path.join(folder, "claims")), "claims left after the sweep finished")
+    # Every row of both tables carries the full caution of solver/report/caution.h.
+    caution = caution_text()
+    check(header[-1] == "caution" and all(row[-1] == caution for row in rows),
+          f"{folder}/results.csv: not every row ends with the full caution")
+    check(all(json.loads(line)["caution"] == caution for line in lines),
+          f"{folder}/results.jsonl: not every line carries the full caution")
     return header, rows
+
+
+def png_text(path):
+    """The tEXt chunks of a PNG file (keyword -> text), read without extra packages."""
+    with open(path, "rb") as handle:
+        data = handle.read()
+    check(data[:8] == b"\x89PNG\r\n\x1a\n", f"{path} is not a PNG file")
+    chunks, at = {}, 8
+    while at < len(data):
+        length, kind = struct.unpack(">I4s", data[at:at + 8])
+        if kind == b"tEXt":
+            keyword, _, text = data[at + 8:at + 8 + length].partition(b"\0")
+            chunks[keyword.decode("latin-1")] = text.decode("latin-1")
+        at += 12 + length
+    return chunks
 
 
 def scenario_ranks(lentus, mpiexec, work):
@@ -73,6 +98,11 @@ def scenario_ranks(lentus, mpiexec, work):
     one, two = os.path.join(work, "one"), os.path.join(work, "two")
     out = run([lentus, "sweep", sweep, "--output", one]).stdout
     check("6 cases (3 x 2 grid)" in out, "the number of cases is not printed first")
+    check(holds_caution(out), "the sweep's output does not end with the full caution")
+    # The plot carries the caution, drawn and in the PNG's Description (read from results.csv).
+    picture = os.path.join(one, "plot.png")
+    check(os.path.exists(picture), "no plot.png")
+    check(holds_caution(png_text(picture).get("Description", "")), "plot.png does not carry the full caution")
     check("[6/6]" in out and "failures 0" in out, "no progress lines with done/total and failures")
     run([mpiexec] + MPI_FLAGS + ["-np", "2", lentus, "sweep", sweep, "--output", two])
     h1, r1 = each_case_once(one, 6)
@@ -196,7 +226,8 @@ def scenario_array(lentus, mpiexec, work):
     run([lentus, "sweep", sweep, "--output", runner])
     check(run([lentus, "sweep", sweep, "--count"]).stdout.strip() == "6", "--count does not print 6")
     for index in range(5):
-        run([lentus, "sweep", sweep, "--output", array, "--case-index", str(index)])
+        out = run([lentus, "sweep", sweep, "--output", array, "--case-index", str(index)]).stdout
+        check(holds_caution(out), f"array task {index} does not print the full caution")
     finished = run([lentus, "collect", sweep, "--output", array], expect=1)
     check("Missing 1 case(s) without a result: case-0005" in finished.stdout, "collect does not list the missing case")
     environment = dict(os.environ, SLURM_ARRAY_TASK_ID="5")

@@ -2,14 +2,19 @@
 // tables, messages with file, line and key; row files and the results table.
 #include "solver/errors.h"
 #include "solver/input/case_schema.h"
+#include "solver/report/caution.h"
 #include "solver/sweep/results_table.h"
 #include "solver/sweep/sweep_file.h"
 
 #include <gmock/gmock.h>
 #include <gtest/gtest.h>
 
+#include <nlohmann/json.hpp>
+
+#include <algorithm>
 #include <filesystem>
 #include <fstream>
+#include <limits>
 
 #include <unistd.h>
 
@@ -183,6 +188,74 @@ namespace
     EXPECT_FALSE(sweep::parse_row(text.substr(0, text.size() - 4), back)); // no final "end"
   }
 
+  // Every byte but the row file's own separators survives the row file: tabs, line breaks,
+  // carriage returns, backslashes (also before 't' and 'n'), other control characters, and
+  // a value that reads like the last line.
+  TEST(ResultsTable, RowFilesKeepAnyText)
+  {
+    const std::string odd = "a\tb\nc\rd\\e\\tf\\ng\x01h\"i\\";
+    sweep::ResultRow  row;
+    row.id      = "case-0001";
+    row.name    = odd;
+    row.folder  = "end";
+    row.values  = {{p_key, odd}, {"k", ""}};
+    row.status  = sweep::status::bad_input;
+    row.reason  = "\n" + odd + "\t";
+    row.numbers = {{odd, -0.0, ""}, {"n", 1e-300, odd}};
+    sweep::ResultRow back;
+    ASSERT_TRUE(sweep::parse_row(sweep::row_text(row), back));
+    EXPECT_EQ(back.name, odd);
+    EXPECT_EQ(back.folder, "end");
+    EXPECT_EQ(back.values, row.values);
+    EXPECT_EQ(back.reason, row.reason);
+    ASSERT_EQ(back.numbers.size(), 2u);
+    EXPECT_EQ(back.numbers[0].name, odd);
+    EXPECT_EQ(back.numbers[0].unit, "");
+    EXPECT_EQ(back.numbers[1].value, 1e-300);
+    EXPECT_EQ(back.numbers[1].unit, odd);
+  }
+
+  // Names and reasons with control characters, quotes and commas: results.jsonl parses back to
+  // the same text (RFC 8259, 2017, section 7: control characters escaped), results.csv quotes
+  // such cells and doubles quotes (RFC 4180, 2005, section 2, rules 6 and 7). Numbers that are
+  // not finite are null in JSON and empty in CSV. Both carry the full caution on every row.
+  TEST(ResultsTable, AnyNameSurvivesBothTablesAndEveryRowCarriesTheCaution)
+  {
+    const std::string name = "tab\there, \"quoted\"\nnext\rline\x02";
+    sweep::ResultRow  row;
+    row.id      = "case-0000";
+    row.name    = name;
+    row.values  = {{p_key, "100, 0"}, {"Geometry/Refinement", "2"}};
+    row.status  = sweep::status::not_converged;
+    row.reason  = "said \"no\"\tthen\nstopped";
+    row.numbers = {{"maximum speed", std::numeric_limits<double>::quiet_NaN(), "m/s"},
+                   {"flow rate", 1.234567890123e-5, "m^3/s"}};
+    const auto [csv, jsonl] =
+      sweep::table_text({row}, {p_key, "Geometry/Refinement"}, {"Pa", ""}, true);
+
+    ASSERT_EQ(std::count(jsonl.begin(), jsonl.end(), '\n'), 1) << "one line per case";
+    const auto line = nlohmann::ordered_json::parse(jsonl);
+    EXPECT_EQ(line["name"].get<std::string>(), name);
+    EXPECT_EQ(line["reason"].get<std::string>(), row.reason);
+    EXPECT_TRUE(line["design numbers"]["maximum speed"]["value"].is_null());
+    EXPECT_EQ(line["design numbers"]["flow rate"]["value"].get<double>(), 1.234567890e-5); // 10 digits, as the CSV
+    EXPECT_TRUE(line["values"]["Geometry/Refinement"]["value"].is_number_integer());
+    EXPECT_EQ(line["values"]["Geometry/Refinement"]["value"].get<int>(), 2);
+    EXPECT_EQ(line["caution"].get<std::string>(), report::caution);
+    std::vector<std::string> keys;
+    for (const auto &item : line.items())
+      keys.push_back(item.key());
+    EXPECT_EQ(keys, (std::vector<std::string>{"case", "index", "name", "values", "status", "reason", "design numbers",
+                                              "Newton iterations", "wall time [s]", "ranks", "folder", "caution"}));
+
+    EXPECT_THAT(csv, HasSubstr(",\"tab\there, \"\"quoted\"\"\nnext\rline\x02\","));
+    EXPECT_THAT(csv, HasSubstr(",\"said \"\"no\"\"\tthen\nstopped\","));
+    EXPECT_THAT(csv, HasSubstr(",not converged,"));
+    EXPECT_THAT(csv, HasSubstr("stopped\",,1.23456789e-05,"));
+    EXPECT_THAT(csv, HasSubstr(",folder,caution\n"));
+    EXPECT_THAT(csv, HasSubstr(",\"" + std::string(report::caution) + "\"\n"));
+  }
+
   TEST(ResultsTable, HeaderCarriesUnitsAndCellsAreQuoted)
   {
     sweep::ResultRow row;
@@ -192,9 +265,12 @@ namespace
     row.numbers = {{"maximum speed", 0.25, "m/s"}};
     const auto [csv, jsonl] = sweep::table_text({row}, {p_key}, {"Pa"}, false);
     EXPECT_THAT(csv, HasSubstr("case,Boundary conditions/Pressure values [Pa],status,reason,maximum speed [m/s],"
-                               "Newton iterations,wall time [s],ranks,folder\n"));
+                               "Newton iterations,wall time [s],ranks,folder,caution\n"));
     EXPECT_THAT(csv, HasSubstr("case-0000,\"100, 0\",converged,,0.25,"));
-    EXPECT_THAT(jsonl, HasSubstr("\"maximum speed\": {\"value\": 0.25, \"unit\": \"m/s\"}"));
+    const auto line = nlohmann::json::parse(jsonl);
+    // Compared as text: Google Test would print a JSON value as a container of itself.
+    EXPECT_EQ(line["design numbers"]["maximum speed"].dump(), R"({"unit":"m/s","value":0.25})");
+    EXPECT_EQ(line["values"][p_key]["value"].get<std::string>(), "100, 0");
     EXPECT_EQ(sweep::unit_of_key(input::case_schema(), n_key), "-");
     EXPECT_EQ(sweep::unit_of_key(input::case_schema(), "Geometry/Pipe/Radius"), "m");
   }
