@@ -1,5 +1,5 @@
 // Each law against values computed by hand from its defining formula
-// (analytic; the formulas are those of DESIGN.md with the sources in each law's file).
+// (analytic; each formula's source is cited in the law's file, e.g. rheology/laws/cross.cc).
 #include "rheology/law_helpers.h"
 #include "rheology/law_registry.h"
 
