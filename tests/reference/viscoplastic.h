@@ -67,7 +67,8 @@ namespace lentus::testing
   {
     const double s = 1. / n, X = tau_w - tau_y;
     const double integral = std::pow(K, -s) * (tau_y * tau_y * std::pow(X, s + 1.) / (s + 1.) +
-                                               2. * tau_y * std::pow(X, s + 2.) / (s + 2.) + std::pow(X, s + 3.) / (s + 3.));
+                                               2. * tau_y * std::pow(X, s + 2.) / (s + 2.) +
+                                               std::pow(X, s + 3.) / (s + 3.));
     return M_PI * R * R * R / (tau_w * tau_w * tau_w) * integral;
   }
 

@@ -73,8 +73,8 @@ TEST(RoundDie, AbruptContractionEntranceLoss)
       const auto result = lentus::testing::run_case("contraction_" + std::to_string(level), contraction(),
                                                     {"Geometry/Refinement=" + std::to_string(level)});
       ASSERT_TRUE(result.converged) << result.reason;
-      // Analytic (Hagen-Poiseuille; Bird, Stewart & Lightfoot 2002, section 2.3): developed wall stress 4 mu Q/(pi R^3),
-      // pressure drop 8 mu Q L/(pi R^4) in the land (R = 1, L = 10) and the barrel (R = 4, L = 10).
+      // Analytic (Hagen-Poiseuille; Bird, Stewart & Lightfoot 2002, section 2.3): developed wall stress
+      // 4 mu Q/(pi R^3), pressure drop 8 mu Q L/(pi R^4) in the land (R = 1, L = 10) and the barrel (R = 4, L = 10).
       EXPECT_NEAR(result.number("developed wall shear stress in the land"), 4. / M_PI, 1e-5 * 4. / M_PI);
       EXPECT_NEAR(result.number("developed pressure drop in the land"), 80. / M_PI, 1e-5 * 80. / M_PI);
       EXPECT_NEAR(result.number("developed pressure drop in the barrel"), 80. / (M_PI * 256.), 1e-5 * 80. / (M_PI * 256.));
@@ -143,8 +143,9 @@ end
       const auto result = lentus::testing::run_case("slit_die_" + std::to_string(level), text,
                                                     {"Geometry/Refinement=" + std::to_string(level)});
       ASSERT_TRUE(result.converged) << result.reason;
-      // Analytic (plane Poiseuille; Bird, Stewart & Lightfoot 2002, problem 2B.3): tau_w = 3 mu q / (2 h^2) = 1.5 Pa in the
-      // land (h = 1 m), pressure drop tau_w L / h = 15 Pa; apparent wall shear rate 6 q / H^2 = 1.5 1/s.
+      // Analytic (plane Poiseuille; Bird, Stewart & Lightfoot 2002, problem 2B.3): tau_w = 3 mu q / (2 h^2)
+      // = 1.5 Pa in the land (h = 1 m), pressure drop tau_w L / h = 15 Pa; apparent wall shear rate
+      // 6 q / H^2 = 1.5 1/s.
       EXPECT_NEAR(result.number("developed wall shear stress in the land"), 1.5, 1e-5 * 1.5);
       EXPECT_NEAR(result.number("developed pressure drop in the land"), 15., 1e-5 * 15.);
       EXPECT_NEAR(result.number("apparent wall shear rate in the land"), 1.5, 1e-6 * 1.5); // from the computed outflow

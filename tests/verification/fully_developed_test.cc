@@ -140,8 +140,8 @@ TEST(HerschelBulkleyPipe, FlowRate)
   // well under the 0.5% allowed.
   const double exact = lentus::testing::herschel_bulkley_pipe_flow_rate(1., 1., 1., 0.5, 0.3);
   // The closed form against a direct quadrature of its integral, tau^2 gamma_dot(tau) over [tau_y, tau_w].
-  const double quadrature = M_PI * lentus::testing::simpson(
-                                     [](const double tau) { return tau * tau * std::pow(tau - 0.3, 2.); }, 0.3, 1., 2000);
+  const auto   integrand  = [](const double tau) { return tau * tau * std::pow(tau - 0.3, 2.); };
+  const double quadrature = M_PI * lentus::testing::simpson(integrand, 0.3, 1., 2000);
   EXPECT_NEAR(exact, quadrature, 1e-10 * exact);
   const std::string fluid = R"(subsection Rheology
   set Viscosity law = Herschel-Bulkley

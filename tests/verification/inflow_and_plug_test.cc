@@ -10,9 +10,9 @@ TEST(InflowProfile, PowerLawPipePressureDrop)
 {
   // Source: power-law pipe flow (Chhabra & Richardson 2008, Non-Newtonian Flow and Applied Rheology,
   // ch. 3; from memory for the equation number): for Q = (pi n/(3n+1)) R^3 (tau_w/K)^(1/n) the wall
-  // stress is tau_w, and the force balance gives the developed pressure drop 2 L tau_w / R. With n = 0.5, K = 1 Pa s^n,
-  // R = 1 m, L = 2 m, tau_w = 1 Pa: Q = 0.2 pi m^3/s, pressure drop 4 Pa. The inflow carries the developed
-  // profile, so the whole pipe is developed: within 0.5%.
+  // stress is tau_w, and the force balance gives the developed pressure drop 2 L tau_w / R. With n = 0.5,
+  // K = 1 Pa s^n, R = 1 m, L = 2 m, tau_w = 1 Pa: Q = 0.2 pi m^3/s, pressure drop 4 Pa. The inflow carries
+  // the developed profile, so the whole pipe is developed: within 0.5%.
   const double      Q    = M_PI * 0.5 / 2.5;
   const std::string text = R"(subsection Rheology
   set Viscosity law = Power law

@@ -121,7 +121,7 @@ TEST(CylinderInChannel, SchaeferTurek2D1)
 TEST(CylinderInChannel, CreepingFlowDragPointsDownstream)
 {
   // No published creeping-flow drag for this off-centre cylinder is at hand: only the direction of the
-  // force is checked (its size is covered by the regression of the solver's answers, not by a source).
+  // force is checked, not its size.
   const auto result = lentus::testing::run_case("cylinder_creeping", cylinder_case(false), {"Geometry/Refinement=1"});
   ASSERT_TRUE(result.converged) << result.reason;
   // The flow drags the cylinder downstream (+x): the cylinder pushes the fluid back.

@@ -86,7 +86,8 @@ end
   const auto &result = run.result();
   ASSERT_TRUE(result.converged) << result.reason;
   const double R_i = 1., R_o = 2., Omega = 1., mu = 1., rho = 10.;
-  const double A = -Omega * R_i * R_i / (R_o * R_o - R_i * R_i), B = Omega * R_i * R_i * R_o * R_o / (R_o * R_o - R_i * R_i);
+  const double A = -Omega * R_i * R_i / (R_o * R_o - R_i * R_i);
+  const double B = Omega * R_i * R_i * R_o * R_o / (R_o * R_o - R_i * R_i);
   EXPECT_LT(relative(result.number("impeller torque"), 4. * M_PI * mu * B), 0.005);
 
   const auto   p = [&](const double r) { return rho * (A * A * r * r / 2. + 2. * A * B * std::log(r) - B * B / (2. * r * r)); };

@@ -104,8 +104,8 @@ namespace lentus::rheology::fit
                                return name;
                              });
 
-    // Analytic (invariance to a unit change, Pa <-> dyn/cm^2): a stress unit scales tau by a constant, which moves K and tau_y by the same factor and
-    // leaves n unchanged (analytic).
+    // Analytic (invariance to a unit change, Pa <-> dyn/cm^2): a stress unit scales tau by a constant,
+    // which moves K and tau_y by the same factor and leaves n unchanged.
     TEST(FitUnits, StressInDynPerSquareCentimetreGivesTheSameFluid)
     {
       const SyntheticLaw law = synthetic_laws()[5]; // Herschel-Bulkley

@@ -90,7 +90,8 @@ INSTANTIATE_TEST_SUITE_P(FlowIndexAndRadiusRatio, PowerLawAnnulus,
 TEST(DevelopedAnnulus, NarrowGapApproachesSlit)
 {
   // Bird, Stewart & Lightfoot 2002, section 2.4: as k -> 1 the annulus becomes a plane slit of
-  // half-gap h = (R - a)/2 and width 2 pi (R + a)/2; slit power law (Bird, Stewart & Lightfoot 2002, ch. 8; from memory for the section):
+  // half-gap h = (R - a)/2 and width 2 pi (R + a)/2; slit power law (Bird, Stewart & Lightfoot 2002,
+  // ch. 8; from memory for the section):
   // q = (2 n h^2 / (2n + 1)) (tau_w / K)^(1/n), tau_w = G h, per unit width.
   const double K = 3., n = 0.6, R = 0.05, a = 0.0495, G = 1e6; // inputs only
   const double h = 0.5 * (R - a), q = 2. * n * h * h / (2. * n + 1.) * std::pow(G * h / K, 1. / n);

@@ -62,9 +62,10 @@ TEST_P(EveryLaw, DerivativeMatchesCentralDifference)
 // law's own stress() is eta times gamma_dot by definition and is not what is checked.
 TEST_P(EveryLaw, FlowCurveRisesAndViscosityIsFinitePositive)
 {
-  const auto law         = registry().create(GetParam().law, GetParam().values);
-  const auto rate_index  = GetParam().values.find("Rate index");
-  const bool rising      = !(GetParam().law == "Cross" && rate_index != GetParam().values.end() && rate_index->second > 1.);
+  const auto law        = registry().create(GetParam().law, GetParam().values);
+  const auto rate_index = GetParam().values.find("Rate index");
+  const bool rising =
+    !(GetParam().law == "Cross" && rate_index != GetParam().values.end() && rate_index->second > 1.);
   double     last_stress = 0.;
   for (const double g : log_spaced(1e-8, 1e6, 4))
     {
