@@ -77,6 +77,9 @@ def write_reference(folder, path):
 
 
 def read_reference(path):
+    if not os.path.exists(path):
+        fail("no reference %s: write it with `regression.py reference FOLDER %s` from a run of the demo"
+             % (path, os.path.basename(path)))
     numbers = {}
     with open(path, encoding="utf-8", newline="") as handle:
         rows = csv.reader(handle)
