@@ -1,7 +1,7 @@
-# Runs one lentus command and checks its exit code, its output and that no
-# file was left behind on failure.
+# Runs one lentus command and checks its exit code, its output and the files it wrote or must
+# not write (called by lentus_cli_test() in tests/CMakeLists.txt).
 #   -DLENTUS=path -DARGS="a|b|c" -DEXPECT_CODE=2 [-DEXPECT_TEXT="..."] [-DEXPECT_STDOUT="..."]
-#   [-DNO_FILES="f1|f2"] [-DFILES="f1|f2"] [-DWORKDIR=dir]
+#   [-DNO_FILES="f1|f2"] [-DFILES="f1|f2"] [-DFILE_CONTAINS="file=text"] [-DWORKDIR=dir]
 string(REPLACE "|" ";" arguments "${ARGS}")
 if(NOT WORKDIR)
   set(WORKDIR ${CMAKE_CURRENT_BINARY_DIR})
@@ -35,7 +35,7 @@ if(DEFINED EXPECT_STDOUT)
 endif()
 foreach(path IN LISTS absent)
   if(EXISTS ${WORKDIR}/${path})
-    message(FATAL_ERROR "file was written although the command failed: ${path}")
+    message(FATAL_ERROR "file was written although it must not be: ${path}")
   endif()
 endforeach()
 file(GLOB leftovers ${WORKDIR}/.*.tmp-*)

@@ -11,10 +11,7 @@
       report.html in headless Chromium at PX (1280) px wide: no horizontal overflow, every
       design number's row and key card inside the window and visible, no name wrapped onto
       more than two lines. Exit 77 (skipped) when chromium is not installed.
-  check_pictures.py run LENTUS WORKDIR FOLDER [--env NAME=VALUE]... [--stderr TEXT]...
-                    [--present FILE]... [--absent FILE]... -- RUN-ARGUMENTS...
-      Runs `LENTUS run RUN-ARGUMENTS --output FOLDER` in WORKDIR with the environment
-      changes, and checks: exit code 0, standard error holds each TEXT, the files.
+The runs themselves are lentus_cli_test()s (tests/CMakeLists.txt).
 """
 import argparse
 import html
@@ -271,30 +268,6 @@ def check_browser(folder, width, screenshot):
         len(rows), len(cards), verdict["width"]))
 
 
-def run_lentus(arguments):
-    environment = dict(os.environ)
-    for change in arguments.env:
-        name, _, value = change.partition("=")
-        environment[name] = value
-    os.makedirs(arguments.workdir, exist_ok=True)
-    shutil.rmtree(os.path.join(arguments.workdir, arguments.folder), ignore_errors=True)
-    command = [arguments.lentus, "run"] + arguments.run_arguments + ["--output", arguments.folder]
-    result = subprocess.run(command, cwd=arguments.workdir, env=environment, capture_output=True, text=True,
-                            check=False)
-    print("$ %s\n--- stdout\n%s--- stderr\n%s" % (" ".join(command), result.stdout[-3000:], result.stderr))
-    if result.returncode != 0:
-        fail("exit code %d, expected 0" % result.returncode)
-    for text in arguments.stderr:
-        if text not in result.stderr:
-            fail("standard error does not contain: %s" % text)
-    for name in arguments.present:
-        if not os.path.exists(os.path.join(arguments.workdir, arguments.folder, name)):
-            fail("%s not written" % name)
-    for name in arguments.absent:
-        if os.path.exists(os.path.join(arguments.workdir, arguments.folder, name)):
-            fail("%s written although it should not be" % name)
-
-
 def main():
     parser = argparse.ArgumentParser(description=__doc__, formatter_class=argparse.RawDescriptionHelpFormatter)
     commands = parser.add_subparsers(dest="command", required=True)
@@ -305,24 +278,11 @@ def main():
     browser.add_argument("folder")
     browser.add_argument("--width", type=int, default=1280)
     browser.add_argument("--screenshot")
-    run = commands.add_parser("run")
-    run.add_argument("lentus")
-    run.add_argument("workdir")
-    run.add_argument("folder")
-    run.add_argument("--env", action="append", default=[])
-    run.add_argument("--stderr", action="append", default=[])
-    run.add_argument("--present", action="append", default=[])
-    run.add_argument("--absent", action="append", default=[])
-    argv = sys.argv[1:]
-    split = argv.index("--") if "--" in argv else len(argv)
-    arguments = parser.parse_args(argv[:split])
+    arguments = parser.parse_args()
     if arguments.command == "folder":
         check_folder(arguments.folder, arguments.swirl_outline)
-    elif arguments.command == "browser":
-        check_browser(arguments.folder, arguments.width, arguments.screenshot)
     else:
-        arguments.run_arguments = argv[split + 1:]
-        run_lentus(arguments)
+        check_browser(arguments.folder, arguments.width, arguments.screenshot)
     print("passed")
     return 0
 

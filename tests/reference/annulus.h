@@ -1,4 +1,5 @@
-// Reference values for fully developed axial flow in a concentric annulus (CHECKS.md A9),
+// Reference values for fully developed axial flow in a concentric annulus (Newtonian: Bird, Stewart &
+// Lightfoot 2002, Transport Phenomena, section 2.4; power law: Hanks & Larsen 1979),
 // computed independently of the solver: shared by the unit and the verification tests.
 #pragma once
 
@@ -32,7 +33,7 @@ namespace lentus::testing
   };
 
   /// Power-law annulus (consistency K, flow index n, outer radius R, inner k R, pressure gradient G),
-  /// in the exact form of Hanks & Larsen 1979, Ind. Eng. Chem. Fundam. 18:33 (via CHECKS.md A9), s = 1/n,
+  /// in the exact form of Hanks & Larsen 1979, Ind. Eng. Chem. Fundam. 18:33, s = 1/n,
   /// xi = r/R: lambda solves int_k^lambda (lambda^2/xi - xi)^s dxi = int_lambda^1 (xi - lambda^2/xi)^s dxi,
   /// Q = (pi R^3 n / (3n + 1)) (R G / (2K))^s [(1 - lambda^2)^(1+s) - k^(1-s) (lambda^2 - k^2)^(1+s)].
   inline PowerLawAnnulusFlow power_law_annulus(const double K, const double n, const double R, const double k,

@@ -44,8 +44,8 @@ end
 )";
   }
 
-  /// The rows (r, outflow velocity) of an axisymmetric run's exit_profile.csv; checks the header and
-  /// that the tangential velocity vanishes (a developed exit at a set pressure).
+  /// The rows (r, outflow velocity) of an axisymmetric run's exit_profile.csv; checks the header. (Its
+  /// tangential velocity is not checked: the outlet holds it at zero as a Dirichlet condition.)
   std::vector<std::array<double, 2>> exit_profile(const std::string &folder)
   {
     std::vector<std::array<double, 2>> rows;
@@ -55,12 +55,11 @@ end
     EXPECT_EQ(line, "r [m],z [m],outflow velocity [m/s],tangential velocity [m/s]");
     while (std::getline(profile, line))
       {
-        double            r, z, u, t;
+        double            r, z, u;
         char              comma;
         std::stringstream fields(line);
-        fields >> r >> comma >> z >> comma >> u >> comma >> t;
-        EXPECT_NEAR(t, 0., 1e-12);
-        rows.push_back({r, u});
+        fields >> r >> comma >> z >> comma >> u;
+        rows.push_back({{r, u}});
       }
     return rows;
   }
@@ -74,14 +73,11 @@ TEST(RoundDie, AbruptContractionEntranceLoss)
       const auto result = lentus::testing::run_case("contraction_" + std::to_string(level), contraction(),
                                                     {"Geometry/Refinement=" + std::to_string(level)});
       ASSERT_TRUE(result.converged) << result.reason;
-      // Analytic (Hagen-Poiseuille; CHECKS.md A2 with n = 1): developed wall stress 4 mu Q/(pi R^3),
-      // pressure drop 8 mu Q L/(pi R^4) in the land (R = 1, L = 10) and the barrel (R = 4, L = 10).
+      // Analytic (Hagen-Poiseuille; Bird, Stewart & Lightfoot 2002, section 2.3): developed wall stress
+      // 4 mu Q/(pi R^3), pressure drop 8 mu Q L/(pi R^4) in the land (R = 1, L = 10) and the barrel (R = 4, L = 10).
       EXPECT_NEAR(result.number("developed wall shear stress in the land"), 4. / M_PI, 1e-5 * 4. / M_PI);
       EXPECT_NEAR(result.number("developed pressure drop in the land"), 80. / M_PI, 1e-5 * 80. / M_PI);
       EXPECT_NEAR(result.number("developed pressure drop in the barrel"), 80. / (M_PI * 256.), 1e-5 * 80. / (M_PI * 256.));
-      // Analytic (virtual power): power input = viscous dissipation within 0.5%.
-      EXPECT_NEAR(result.number("power input through boundaries"), result.number("viscous dissipation"),
-                  0.005 * result.number("viscous dissipation"));
       coefficient.push_back(result.number("entrance loss coefficient (Bagley end correction)"));
       drop.push_back(result.number("pressure drop inlet to outlet"));
     }
@@ -91,8 +87,9 @@ TEST(RoundDie, AbruptContractionEntranceLoss)
   // between the finest two, and the coefficient's changes shrink.
   EXPECT_LT(std::abs(drop[2] - drop[1]), 0.01 * drop[2]);
   EXPECT_LT(std::abs(coefficient[2] - coefficient[1]), std::abs(coefficient[1] - coefficient[0]));
-  // Source: Sampson 1891 (orifice), half assigned to the entrance after Weissberg 1962, via CHECKS.md B5
-  // [from memory]: C = 3 pi / 16 = 0.589 for an infinite contraction ratio, an upper bound for 4:1;
+  // Source: Sampson 1891 (Phil. Trans. R. Soc. A 182:449; the orifice, Delta p = 3 mu Q / R^3), half of
+  // it assigned to the entrance after Weissberg 1962 (Phys. Fluids 5:1033) [from memory]:
+  // C = (3/2) mu Q / R^3 / (2 tau_w) = 3 pi / 16 = 0.589 for an infinite contraction ratio, an upper bound for 4:1;
   // a finite 4:1 ratio gives "a somewhat lower" value. Loose lower bound 0.5 (from memory).
   EXPECT_LT(coefficient[2], 3. * M_PI / 16.);
   EXPECT_GT(coefficient[2], 0.5);
@@ -112,7 +109,7 @@ TEST(RoundDie, AbruptContractionEntranceLoss)
   EXPECT_GE(rows.size(), 9u);
 }
 
-TEST(SlitDie, AbruptContractionDevelopedFlowAndEnergy)
+TEST(SlitDie, AbruptContractionDevelopedFlow)
 {
   // Half of a planar 4:1 slit contraction (symmetry plane at x = 0). The half carries 0.5 m^2/s, so the
   // full slit carries q = 1 m^2/s per metre of width.
@@ -146,25 +143,24 @@ end
       const auto result = lentus::testing::run_case("slit_die_" + std::to_string(level), text,
                                                     {"Geometry/Refinement=" + std::to_string(level)});
       ASSERT_TRUE(result.converged) << result.reason;
-      // Analytic (plane Poiseuille; CHECKS.md A1 with n = 1): tau_w = 3 mu q / (2 h^2) = 1.5 Pa in the
-      // land (h = 1 m), pressure drop tau_w L / h = 15 Pa; apparent wall shear rate 6 q / H^2 = 1.5 1/s.
+      // Analytic (plane Poiseuille; Bird, Stewart & Lightfoot 2002, problem 2B.3): tau_w = 3 mu q / (2 h^2)
+      // = 1.5 Pa in the land (h = 1 m), pressure drop tau_w L / h = 15 Pa; apparent wall shear rate
+      // 6 q / H^2 = 1.5 1/s.
       EXPECT_NEAR(result.number("developed wall shear stress in the land"), 1.5, 1e-5 * 1.5);
       EXPECT_NEAR(result.number("developed pressure drop in the land"), 15., 1e-5 * 15.);
       EXPECT_NEAR(result.number("apparent wall shear rate in the land"), 1.5, 1e-6 * 1.5); // from the computed outflow
-      EXPECT_NEAR(result.number("power input through boundaries"), result.number("viscous dissipation"),
-                  0.005 * result.number("viscous dissipation"));
       drop.push_back(result.number("pressure drop inlet to outlet"));
     }
   std::cout << "slit die pressure drop at levels 0, 1, 2: " << drop[0] << ", " << drop[1] << ", " << drop[2]
             << std::endl;
   // Mesh convergence (common practice): under 1% between the finest two levels.
   EXPECT_LT(std::abs(drop[2] - drop[1]), 0.01 * drop[2]);
-  // The total exceeds the developed drops (land 15 Pa; manifold tau_w L / h = (1.5 / 16) * 10 / 4 =
-  // 0.234375 Pa): the entrance loss of a Newtonian contraction is positive.
-  EXPECT_GT(drop[2], 15. + 0.234375);
+  // The total exceeds the developed drops (land 15 Pa; manifold tau_w L / h with tau_w = 3 mu q / (2 h^2),
+  // h = 4 m): the entrance loss of a Newtonian contraction is positive.
+  EXPECT_GT(drop[2], 15. + 3. * 1. / (2. * 16.) * 10. / 4.);
 }
 
-TEST(TubeDie, NewtonianAnnularLandEnergyAndMeshConvergence)
+TEST(TubeDie, NewtonianAnnularLandAndMeshConvergence)
 {
   // Abrupt 4:1 round die with a mandrel of half the land radius through the whole die (a tube die).
   const std::string text = contraction(0.5);
@@ -186,9 +182,6 @@ TEST(TubeDie, NewtonianAnnularLandEnergyAndMeshConvergence)
                   1e-5 * tau_outer);
       // Perimeter mean (force balance, exact): G (R - a) / 2.
       EXPECT_NEAR(result.number("developed wall shear stress in the land"), 0.25 * G_land, 1e-5 * G_land);
-      // Analytic (virtual power): power input = viscous dissipation within 0.5%.
-      EXPECT_NEAR(result.number("power input through boundaries"), result.number("viscous dissipation"),
-                  0.005 * result.number("viscous dissipation"));
       drop.push_back(result.number("pressure drop inlet to outlet"));
       // The total exceeds the developed drops (Newtonian entrance loss is positive).
       EXPECT_GT(drop.back(), 10. * (G_land + G_barrel));
@@ -226,7 +219,8 @@ TEST(AnnularPipe, PowerLawPressureDropMatchesExactForm)
 {
   // Axial flow of a power-law fluid (n = 0.5) up an annular gap 0.5 < r < 1, 4 long: the inflow gets the
   // developed annulus profile, so the computed pressure drop is G L with G from the exact form of
-  // Hanks & Larsen 1979 (CHECKS.md A9; tests/reference/annulus.h) at the same flow rate; within 0.5%.
+  // Hanks & Larsen 1979 (Ind. Eng. Chem. Fundam. 18:33; tests/reference/annulus.h) at the same flow rate;
+  // within 0.5%.
   const double G    = 2.;
   const auto   flow = lentus::testing::power_law_annulus(1., 0.5, 1., 0.5, G);
   const std::string text = lentus::testing::power_law(0.5) + R"(subsection Geometry
@@ -252,7 +246,4 @@ end
   const auto result = lentus::testing::run_case("power_law_annulus", text);
   ASSERT_TRUE(result.converged) << result.reason;
   EXPECT_NEAR(result.number("mean pressure on bottom"), 4. * G, 0.005 * 4. * G);
-  // Analytic (virtual power): power input = viscous dissipation within 0.5%.
-  EXPECT_NEAR(result.number("power input through boundaries"), result.number("viscous dissipation"),
-              0.005 * result.number("viscous dissipation"));
 }

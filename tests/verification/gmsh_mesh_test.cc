@@ -36,7 +36,8 @@ end
 TEST(GmshMesh, PowerLawSlitFromMsh22)
 {
   // Channel 2 x 1 (h = 0.5 m), pressure drop 2 Pa: G = 1 Pa/m, K = 1 Pa s^n, n = 0.5.
-  // Source: Bird, Stewart & Lightfoot, Transport Phenomena (power-law slit flow); CHECKS.md A1:
+  // Source: power-law slit flow (Bird, Stewart & Lightfoot 2002, Transport Phenomena, ch. 8; from memory
+  // for the section):
   // q = (2n/(2n+1)) (G/K)^(1/n) h^(2+1/n); within 0.5%, as the built-in Channel in fully_developed_test.
   const double n = 0.5;
   const double q = 2. * n / (2. * n + 1.) * std::pow(0.5, 2. + 1. / n);
@@ -49,8 +50,6 @@ end
 )");
   ASSERT_TRUE(result.converged) << result.reason;
   EXPECT_LT(relative(result.number("flow rate out through outlet"), q), 0.005);
-  // Analytic (virtual power): power input = viscous dissipation, within 0.5%.
-  EXPECT_LT(relative(result.number("power input through boundaries"), result.number("viscous dissipation")), 0.005);
 }
 
 TEST(GmshMesh, NewtonianInflowByMassFromMsh41Scaled)
@@ -85,7 +84,8 @@ end
 TEST(GmshMesh, PowerLawPipeFromMsh41)
 {
   // Pipe R = 1 m, L = 1 m, pressure drop 2 Pa: tau_w = G R / 2 = 1 Pa, K = 1 Pa s^n, n = 0.5.
-  // Source: CHECKS.md A2 (Chhabra & Richardson 2008, ch. 3): Q = (pi n/(3n+1)) R^3 (tau_w/K)^(1/n); within 0.5%.
+  // Source: power-law pipe flow (Chhabra & Richardson 2008, Non-Newtonian Flow and Applied Rheology, ch. 3;
+  // from memory for the equation number): Q = (pi n/(3n+1)) R^3 (tau_w/K)^(1/n); within 0.5%.
   const double n      = 0.5;
   const double Q      = M_PI * n / (3. * n + 1.);
   const auto   result = run_case("gmsh_power_law_pipe", power_law(n) + gmsh_geometry("pipe.msh", 1., 3) + R"(

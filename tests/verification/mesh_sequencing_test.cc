@@ -21,7 +21,7 @@ end
 
 TEST(MeshSequencing, PoiseuilleIsCarriedOverExactly)
 {
-  // Analytic: plane Poiseuille flow (CHECKS.md A1 with n = 1): u = G y (H - y) / (2 mu), linear
+  // Analytic: plane Poiseuille flow (Bird, Stewart & Lightfoot 2002, problem 2B.3): u = G y (H - y) / (2 mu), linear
   // pressure, q = G H^3 / (12 mu) = 1/12 m^2/s for G = 1 Pa/m, H = 1 m, mu = 1 Pa s. The Q2-Q1
   // space holds it exactly, so the coarse solution interpolated to the finer mesh already solves
   // the finer problem: no iteration there, and the flow rate to round-off.

@@ -38,9 +38,8 @@ namespace lentus::rheology::fit::testing
     *os << law.law;
   }
 
-  /// One test law per registry law; values are inputs for the tests (the
-  /// Herschel-Bulkley set (5 Pa, 2 Pa s^n, 0.5) on 1e-2..1e3 1/s is the one the
-  /// team's check list, section E1, suggests).
+  /// One test law per registry law; values are inputs for the tests (invented, of the size
+  /// real fluids have; e.g. Herschel-Bulkley (5 Pa, 2 Pa s^n, 0.5) on 1e-2..1e3 1/s).
   inline std::vector<SyntheticLaw> synthetic_laws()
   {
     return {

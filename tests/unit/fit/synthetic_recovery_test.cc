@@ -1,4 +1,4 @@
-// Synthetic recovery (the team's check list, section E1): data generated from a
+// Synthetic recovery: data generated from a
 // law with known parameters must give them back: exactly without noise, and
 // inside the 95% confidence intervals about 95% of the time with 2% noise.
 #include "rheology/fit/law_fit.h"
@@ -50,8 +50,10 @@ namespace lentus::rheology::fit
       EXPECT_LT(fit.rms_log, 1e-8);
     }
 
-    // Source: the team's check list, section E1 (coverage at the stated level); the band 88-99%
-    // over 200 seeds is about +-4 binomial standard deviations around 95% (common practice).
+    // Source: the meaning of a 95% confidence interval (for the linearized intervals of nonlinear least
+    // squares only approximately: Bates & Watts 1988, Nonlinear Regression Analysis and Its Applications,
+    // ch. 2; from memory for the chapter); the band 88-99% over 200 seeds is about +-4 binomial standard
+    // deviations around 95% (common practice).
     TEST_P(EveryLaw, ConfidenceIntervalsCoverTheTruthAbout95PercentWith2PercentNoise)
     {
       const SyntheticLaw        &law   = GetParam();
@@ -78,7 +80,7 @@ namespace lentus::rheology::fit
         }
     }
 
-    // Source: the team's check list, section E1 (invariance to the data ordering).
+    // Analytic: the sum of squares does not depend on the order of its terms.
     TEST_P(EveryLaw, OrderOfTheDataDoesNotMatter)
     {
       const SyntheticLaw &law  = GetParam();
@@ -102,9 +104,8 @@ namespace lentus::rheology::fit
                                return name;
                              });
 
-    // Source: the team's check list, section E1 (invariance to a unit change, Pa <-> dyn/cm^2):
-    // a stress unit scales tau by a constant, which moves K and tau_y by the same factor and
-    // leaves n unchanged (analytic).
+    // Analytic (invariance to a unit change, Pa <-> dyn/cm^2): a stress unit scales tau by a constant,
+    // which moves K and tau_y by the same factor and leaves n unchanged.
     TEST(FitUnits, StressInDynPerSquareCentimetreGivesTheSameFluid)
     {
       const SyntheticLaw law = synthetic_laws()[5]; // Herschel-Bulkley
@@ -171,7 +172,7 @@ namespace lentus::rheology::fit
       EXPECT_NEAR(estimate_of(fit, "C2").value, 150., 1e-5 * 150.);
     }
 
-    // Source: the team's check list, section E1 (coverage), applied to the activation energy;
+    // Source: the meaning of a 95% confidence interval (as above), applied to the activation energy;
     // band as above for 100 seeds (about +-3 binomial standard deviations; common practice).
     TEST(FitTemperature, IntervalsCoverTheTruthWithAnArrheniusShift)
     {

@@ -28,7 +28,7 @@ namespace
 
 TEST(DevelopedAnnulus, NewtonianMatchesExactSolution)
 {
-  // Bird, Stewart & Lightfoot 2002, Transport Phenomena, section 2.4 (via CHECKS.md A9):
+  // Bird, Stewart & Lightfoot 2002, Transport Phenomena, section 2.4:
   // Q = (pi G R^4 / (8 mu)) [(1 - k^4) - (1 - k^2)^2 / ln(1/k)], lambda^2 = (1 - k^2) / (2 ln(1/k)),
   // u(r) = (G R^2 / (4 mu)) [1 - (r/R)^2 + (1 - k^2) ln(r/R) / ln(1/k)].
   const double mu = 2., R = 0.02, k = 0.4, G = 3e4; // inputs only
@@ -68,7 +68,7 @@ class PowerLawAnnulus : public ::testing::TestWithParam<std::pair<double, double
 
 TEST_P(PowerLawAnnulus, MatchesExactForm)
 {
-  // Hanks & Larsen 1979, Ind. Eng. Chem. Fundam. 18:33 (exact form, via CHECKS.md A9; tests/reference/annulus.h).
+  // Hanks & Larsen 1979, Ind. Eng. Chem. Fundam. 18:33 (exact form; tests/reference/annulus.h).
   const auto [n, k] = GetParam();
   const double K = 5., R = 0.01, G = 2e5; // inputs only
   const auto exact = lentus::testing::power_law_annulus(K, n, R, k, G);
@@ -90,7 +90,8 @@ INSTANTIATE_TEST_SUITE_P(FlowIndexAndRadiusRatio, PowerLawAnnulus,
 TEST(DevelopedAnnulus, NarrowGapApproachesSlit)
 {
   // Bird, Stewart & Lightfoot 2002, section 2.4: as k -> 1 the annulus becomes a plane slit of
-  // half-gap h = (R - a)/2 and width 2 pi (R + a)/2; slit power law (CHECKS.md A1):
+  // half-gap h = (R - a)/2 and width 2 pi (R + a)/2; slit power law (Bird, Stewart & Lightfoot 2002,
+  // ch. 8; from memory for the section):
   // q = (2 n h^2 / (2n + 1)) (tau_w / K)^(1/n), tau_w = G h, per unit width.
   const double K = 3., n = 0.6, R = 0.05, a = 0.0495, G = 1e6; // inputs only
   const double h = 0.5 * (R - a), q = 2. * n * h * h / (2. * n + 1.) * std::pow(G * h / K, 1. / n);

@@ -1,6 +1,7 @@
-// No published raw (shear rate, stress) table with matching published fit parameters
-// is at hand (the team's check list, section E). As the issue allows, data are generated
-// from a named source's parameters and the fitter must give them back.
+// A synthetic round trip, not a check against published data: no published raw (shear rate, stress)
+// table with matching published fit parameters is at hand. Data are generated from Carreau parameters
+// of the size a polymer melt has, with 2% noise, and the fitter must give them back within its
+// intervals. (tests/unit/fit/synthetic_recovery_test.cc does the same for every law.)
 #include "rheology/fit/law_fit.h"
 #include "synthetic_data.h"
 
@@ -11,9 +12,9 @@ namespace lentus::rheology::fit
   namespace
   {
     // Carreau fit of a polystyrene melt at 453 K: eta_0 = 1.48e4 Pa s, lambda = 1.04 s, n = 0.398, a = 2.
-    // Source: Bird, Armstrong & Hassager 1987, Dynamics of Polymeric Liquids vol. 1, Table 4.1-2, as
-    // recalled in the team's check list D5 (from memory, low confidence: not verified against the table).
-    // The check is a round trip of the fitter, so it does not depend on those digits being exact.
+    // The parameters are recalled from Bird, Armstrong & Hassager 1987, Dynamics of Polymeric Liquids
+    // vol. 1, Table 4.1-2 (from memory, low confidence: not verified against the table). They serve only
+    // as realistic inputs: the check is a round trip of the fitter and does not depend on those digits.
     constexpr double eta_0 = 1.48e4, lambda = 1.04, n = 0.398, a = 2.;
 
     double carreau_stress(const double g)
@@ -21,7 +22,7 @@ namespace lentus::rheology::fit
       return g * eta_0 * std::pow(1. + std::pow(lambda * g, a), (n - 1.) / a);
     }
 
-    TEST(PublishedParameters, CarreauPolystyreneMeltIsRecoveredWithinItsIntervals)
+    TEST(SyntheticRoundTrip, CarreauMeltParametersAreRecoveredWithinTheirIntervals)
     {
       // Shear rates 1e-3..1e3 1/s (both plateau and thinning region), 2% noise.
       const FlowCurveData data = testing::make_data(carreau_stress, 1e-3, 1e3, 25, 0.02, 453);
