@@ -3,6 +3,7 @@
 #include "rheology/parameter_table.h"
 #include "solver/cli/commands.h"
 #include "solver/errors.h"
+#include "solver/report/caution_text.h"
 #include "solver/version.h"
 
 #include <deal.II/base/config.h>
@@ -32,8 +33,7 @@ commands:
 
 `lentus COMMAND --help` describes each command.
 Exit codes: 0 success, 1 other failure, 2 bad input, 3 solver did not converge.
-Results are estimates from a model: check them against measurements; they never
-replace pressure-relief devices, local codes or review by a licensed engineer.
+
 )";
 }
 
@@ -45,7 +45,7 @@ int main(int argc, char **argv)
       if (argc < 2 || std::strcmp(argv[1], "--help") == 0 || std::strcmp(argv[1], "-h") == 0 ||
           std::strcmp(argv[1], "help") == 0)
         {
-          std::cout << usage;
+          std::cout << usage << lentus::report::caution_lines("");
           return argc < 2 ? exit_code::bad_input : exit_code::success;
         }
       const std::string command = argv[1];
