@@ -1,9 +1,38 @@
 #include "rheology/law_registry.h"
 
+#include <cmath>
 #include <stdexcept>
 
 namespace lentus::rheology
 {
+  std::optional<ContinuationPath> LawInfo::continuation_path(const ParameterValues &values) const
+  {
+    for (const Softening &softening : softenings)
+      {
+        const auto found = values.find(softening.key);
+        if (found == values.end())
+          throw std::logic_error("law " + name + " softens '" + softening.key + "', which it does not have");
+        if (!softening.only_if_positive.empty() && !(values.at(softening.only_if_positive) > 0.))
+          continue;
+        const double target = found->second;
+        if (softening.path == Softening::Path::linear && target == softening.easy)
+          continue;
+        ContinuationPath path{softening.key, {}};
+        for (unsigned int k = 0; k <= softening.steps; ++k)
+          {
+            const double step = k;
+            // Geometric: the exponent of 10 in equal steps (exact in binary for the usual 4 steps).
+            path.values.push_back(
+              softening.path == Softening::Path::linear ?
+                softening.easy + (target - softening.easy) * step / softening.steps :
+                target * std::pow(10., std::log10(softening.easy) * (1. - step / softening.steps)));
+          }
+        path.values.back() = target;
+        return path;
+      }
+    return std::nullopt;
+  }
+
   LawRegistry &registry()
   {
     static LawRegistry the_registry;

@@ -4,7 +4,8 @@
 //   const LawRegistration<CarreauYasuda> registration{
 //     "Carreau-Yasuda", "formula", "description",
 //     {{"Zero-shear viscosity", "eta_0", &CarreauYasuda::eta_0, "Pa s", "...", Range::above(0.)}, ...},
-//     &evaluate, &yield_stress, &validate};
+//     &evaluate, &yield_stress, &validate,
+//     {{"Flow index", Softening::Path::linear, 1.}}};   // what continuation may soften
 //
 // The parameter table feeds the case-file declaration, `lentus laws` and the
 // rheometer fitter, so nothing is written twice.
@@ -15,11 +16,37 @@
 
 #include <functional>
 #include <memory>
+#include <optional>
 #include <string>
 #include <vector>
 
 namespace lentus::rheology
 {
+  /// A parameter that continuation may soften when a solve fails: the solver starts from an easier
+  /// value and steps to the case's own. Laws say which of their parameters make a problem hard.
+  struct Softening
+  {
+    enum class Path
+    {
+      geometric, ///< from `easy` x the case's value up to it, in `steps` equal ratios (e.g. M from M/1000)
+      linear     ///< from the value `easy` to the case's, in `steps` equal steps (e.g. n from 1)
+    };
+    std::string key;  ///< the parameter softened
+    Path        path = Path::linear;
+    double      easy = 1.;
+    unsigned int steps = 5;
+    /// Applies only where this parameter is > 0 (e.g. the yield stress for M); "" for always. A
+    /// linear softening does not apply where the case's value already is the easy one.
+    std::string only_if_positive;
+  };
+
+  /// The values of continuation in one parameter, the case's own last.
+  struct ContinuationPath
+  {
+    std::string         key;
+    std::vector<double> values;
+  };
+
   /// Everything the rest of Lentus knows about one law.
   struct LawInfo
   {
@@ -30,6 +57,12 @@ namespace lentus::rheology
     /// Builds the law from values in table order. Checks ranges and the
     /// relations between parameters; throws InvalidParameter.
     std::function<std::unique_ptr<ViscosityLaw>(const std::vector<double> &)> create;
+    /// What continuation may soften, in the order to try; the first that applies is taken.
+    std::vector<Softening> softenings;
+
+    /// The continuation path for a fluid with these complete parameter values (by key), or
+    /// nothing when no softening applies.
+    std::optional<ContinuationPath> continuation_path(const ParameterValues &values) const;
   };
 
   /// All registered laws, in registration order.
@@ -110,12 +143,14 @@ namespace lentus::rheology
                     const std::vector<Row> &rows,
                     Evaluate evaluate,
                     YieldStress yield_stress,
-                    Validate validate)
+                    Validate validate,
+                    std::vector<Softening> softenings = {})
     {
       LawInfo info;
       info.name        = name;
       info.formula     = formula;
       info.description = description;
+      info.softenings  = std::move(softenings);
       for (const Row &row : rows)
         info.parameters.push_back({row.key, row.symbol, row.unit, row.meaning, row.range, row.default_value});
       info.create = [name, rows, evaluate, yield_stress, validate](const std::vector<double> &values)

@@ -36,6 +36,8 @@ namespace lentus::rheology
         Range::at_least(0.)},
        {"Regularization exponent", "M", &Bingham::M, "s",
         "Papanastasiou exponent; larger is closer to the ideal law", Range::above(0.)}},
-      &evaluate, &yield_stress, nullptr};
+      &evaluate, &yield_stress, nullptr,
+      // Continuation: M from M/1000 up in four steps (the flow of a nearly Newtonian fluid first).
+      {{"Regularization exponent", Softening::Path::geometric, 1e-3, 4, "Yield stress"}}};
   } // namespace
 } // namespace lentus::rheology

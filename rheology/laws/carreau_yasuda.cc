@@ -40,6 +40,8 @@ namespace lentus::rheology
         Range::above(0.)},
        {"Yasuda exponent", "a", &CarreauYasuda::a, "-", "width of the transition; 2 for Carreau",
         Range::above(0.), 2.}},
-      &evaluate, nullptr, &validate};
+      &evaluate, nullptr, &validate,
+      // Continuation: the flow index from the Newtonian n = 1 to the case's in five steps.
+      {{"Flow index", Softening::Path::linear, 1., 5, ""}}};
   } // namespace
 } // namespace lentus::rheology

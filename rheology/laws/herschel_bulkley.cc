@@ -51,6 +51,9 @@ namespace lentus::rheology
         "Papanastasiou exponent; larger is closer to the ideal law", Range::above(0.)},
        {"Shear-rate floor", "gamma_min", &HerschelBulkley::gamma_min, "1/s",
         "the power-law term uses max(gamma_dot, gamma_min) (required > 0 when n < 1)", Range::at_least(0.), 0.}},
-      &evaluate, &yield_stress, &validate};
+      &evaluate, &yield_stress, &validate,
+      // Continuation: M from M/1000 up when there is a yield stress, else the flow index from 1.
+      {{"Regularization exponent", Softening::Path::geometric, 1e-3, 4, "Yield stress"},
+       {"Flow index", Softening::Path::linear, 1., 5, ""}}};
   } // namespace
 } // namespace lentus::rheology

@@ -53,6 +53,8 @@ namespace lentus::rheology
         "lower viscosity bound (required > 0 when n > 1)", Range::at_least(0.), 0.},
        {"Maximum viscosity", "eta_max", &PowerLaw::eta_max, "Pa s",
         "upper viscosity bound (required finite when n < 1)", Range::above(0.).or_infinite(), HUGE_VAL}},
-      &evaluate, nullptr, &validate};
+      &evaluate, nullptr, &validate,
+      // Continuation: the flow index from the Newtonian n = 1 to the case's in five steps.
+      {{"Flow index", Softening::Path::linear, 1., 5, ""}}};
   } // namespace
 } // namespace lentus::rheology
