@@ -2,6 +2,7 @@
 #include "solver/cli/arguments.h"
 #include "solver/cli/commands.h"
 #include "solver/errors.h"
+#include "solver/formulation/formulation.h"
 #include "solver/input/case_schema.h"
 #include "solver/input/flow_case.h"
 #include "solver/input/fluid_section.h"
@@ -82,8 +83,8 @@ namespace lentus::cli
     std::cout << '\n';
     if (flow)
       {
-        std::cout << "  geometry: " << flow->shape_name << ", refinement " << flow->refinement << "; formulation "
-                  << to_string(flow->formulation) << "; boundary roles:";
+        std::cout << "  geometry: " << flow->geometry_keys.shape << ", refinement " << flow->geometry_keys.refinement << "; velocity components "
+                  << velocity_components(flow->model.formulation) << "; boundary roles:";
         for (const input::BoundaryCondition &bc : flow->conditions)
           std::cout << ' ' << bc.role << ';';
         std::cout << "\n  results would go to " << flow->output_folder << '\n';

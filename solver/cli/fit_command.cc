@@ -47,7 +47,7 @@ options:
   --no-plot                  do not draw fit.png
 
 writes DIR/fluid.prm (the fitted fluid, a case-file section), DIR/fit.json,
-DIR/sweep.prm (cases sampling the confidence region, for a sweep) and DIR/fit.png.
+DIR/samples.sweep (cases sampling the confidence region, for a sweep) and DIR/fit.png.
 Fitted parameters are model estimates: check them against measurements.
 )";
 
@@ -147,7 +147,7 @@ Fitted parameters are model estimates: check them against measurements.
     const std::vector<std::pair<std::string, std::string>> files{
       {(folder / "fluid.prm").string(), rheology::fit::case_section(best, data.source)},
       {(folder / "fit.json").string(), rheology::fit::json_report(data, fits, options)},
-      {(folder / "sweep.prm").string(),
+      {(folder / "samples.sweep").string(),
        rheology::fit::sweep_file(best, static_cast<std::size_t>(samples), static_cast<std::uint64_t>(seed), data.source)}};
     std::vector<std::pair<std::string, std::string>> renames;
     std::error_code                                  ignored;

@@ -6,6 +6,7 @@
 #include "solver/cli/arguments.h"
 #include "solver/cli/commands.h"
 #include "solver/errors.h"
+#include "solver/formulation/formulation.h"
 #include "solver/input/case_schema.h"
 #include "solver/input/flow_case.h"
 #include "solver/report/case_folder.h"
@@ -36,7 +37,7 @@ namespace lentus::cli
 
     const char *help = R"(usage: [mpirun -np P] lentus mesh CASE [--output FOLDER] [--set Section/Key=VALUE ...]
 
-Builds the mesh of CASE (its Geometry and Flow/Formulation; no fluid or boundary
+Builds the mesh of CASE (its Geometry and Flow/Velocity components; no fluid or boundary
 conditions needed) without solving, prints the number of cells and unknowns and every
 boundary role with its number of sides and its length, and writes FOLDER (default
 out/<case name>_mesh):
@@ -119,9 +120,9 @@ Exit codes: 0 written, 2 bad input (nothing written).
     report::CaseFolder case_folder(folder, "mesh.json", "--output", comm);
 
     parallel::distributed::Triangulation<2> triangulation(comm);
-    flow.geometry->create_mesh(triangulation, flow.refinement);
-    const unsigned int n_velocity = n_velocity_components(flow.formulation);
-    const FESystem<2>  fe(FE_Q<2>(flow.velocity_degree), n_velocity, FE_Q<2>(flow.velocity_degree - 1), 1);
+    flow.geometry->create_mesh(triangulation, flow.geometry_keys.refinement);
+    const unsigned int n_velocity = n_velocity_components(flow.model.formulation);
+    const FESystem<2>  fe(FE_Q<2>(flow.model.velocity_degree), n_velocity, FE_Q<2>(flow.model.velocity_degree - 1), 1);
     DoFHandler<2>      dof_handler(triangulation);
     dof_handler.distribute_dofs(fe);
 
@@ -165,7 +166,7 @@ Exit codes: 0 written, 2 bad input (nothing written).
         for (const std::vector<double> &part : gathered)
           for (std::size_t i = 0; i + 4 < part.size(); i += 5)
             sides.push_back({part[i], part[i + 1], part[i + 2], part[i + 3], static_cast<unsigned int>(part[i + 4])});
-        const bool axisymmetric = is_axisymmetric(flow.formulation);
+        const bool axisymmetric = is_axisymmetric(flow.model.formulation);
         struct RoleSum
         {
           std::size_t sides  = 0;
@@ -189,29 +190,29 @@ Exit codes: 0 written, 2 bad input (nothing written).
           materials = imported->material_names();
 
         const std::string shape = flow.mesh_file.empty() ?
-                                    "shape " + flow.shape_name :
+                                    "shape " + flow.geometry_keys.shape :
                                     "Gmsh mesh " + flow.mesh_file + " (" +
                                       dynamic_cast<const meshes::GmshMesh &>(*flow.geometry).format() + ")";
-        std::printf("Mesh of %s: %s, refinement %u, %s\n", flow.case_file.c_str(), shape.c_str(), flow.refinement,
-                    to_string(flow.formulation).c_str());
+        std::printf("Mesh of %s: %s, refinement %u, velocity components %s\n", flow.case_file.c_str(), shape.c_str(),
+                    flow.geometry_keys.refinement, velocity_components(flow.model.formulation));
         std::printf("  extent: x from %s to %s m, y from %s to %s m\n", rheology::format_short(low[0]).c_str(),
                     rheology::format_short(high[0]).c_str(), rheology::format_short(low[1]).c_str(),
                     rheology::format_short(high[1]).c_str());
         std::printf("  cells: %u; unknowns: %llu (Taylor-Hood Q%u-Q%u, %u velocity components)\n",
                     triangulation.n_global_active_cells(),
-                    static_cast<unsigned long long>(dof_handler.n_dofs()), flow.velocity_degree,
-                    flow.velocity_degree - 1, n_velocity);
+                    static_cast<unsigned long long>(dof_handler.n_dofs()), flow.model.velocity_degree,
+                    flow.model.velocity_degree - 1, n_velocity);
         std::printf("  boundary roles:\n    %3s  %-20s %8s %14s%s\n", "id", "role", "sides", "length [m]",
                     axisymmetric ? "      area [m^2]" : "");
         using json   = nlohmann::ordered_json;
-        json summary = {{"case", flow.case_file}, {"shape", flow.shape_name}};
+        json summary = {{"case", flow.case_file}, {"shape", flow.geometry_keys.shape}};
         if (!flow.mesh_file.empty())
           summary["mesh file"] = flow.mesh_file;
-        summary["refinement"]          = flow.refinement;
-        summary["velocity components"] = to_string(flow.formulation);
+        summary["refinement"]          = flow.geometry_keys.refinement;
+        summary["velocity components"] = velocity_components(flow.model.formulation);
         summary["cells"]               = triangulation.n_global_active_cells();
         summary["unknowns"]            = dof_handler.n_dofs();
-        summary["velocity degree"]     = flow.velocity_degree;
+        summary["velocity degree"]     = flow.model.velocity_degree;
         summary["ranks"]               = Utilities::MPI::n_mpi_processes(comm);
         json roles_json                = json::array();
         for (const auto &[id, name] : names)

@@ -41,7 +41,7 @@ namespace lentus::cli
     const input::FlowCase  flow = input::read_flow_case(file);
     const flow::RunResult result = flow::run_flow_case(flow, MPI_COMM_WORLD);
     // Pictures of the finished folder (also of a last iterate that did not converge).
-    if (!arguments.has("--no-pictures") && file.get("Output/Write pictures") == "true" &&
+    if (!arguments.has("--no-pictures") && flow.output.write_pictures &&
         dealii::Utilities::MPI::this_mpi_process(MPI_COMM_WORLD) == 0)
       flow::draw_pictures(flow.output_folder);
     if (!result.converged)

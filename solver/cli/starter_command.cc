@@ -81,9 +81,9 @@ namespace lentus::cli
         else
           no_slip.push_back(role);
       const bool        axisymmetric = geometry->symmetry() == meshes::Symmetry::axisymmetric_only;
-      const std::string formulation  = !axisymmetric                      ? "planar" :
-                                       (rotating || !impeller.empty()) ? "axisymmetric with swirl" :
-                                                                         "axisymmetric";
+      const std::string components   = !axisymmetric                      ? "x y" :
+                                       (rotating || !impeller.empty()) ? "r z theta" :
+                                                                         "r z";
 
       std::ostringstream text;
       text << "# Starter case for the shape \"" << shape.name << "\" (written by lentus starter).\n"
@@ -108,7 +108,10 @@ namespace lentus::cli
                            shape.parameters[i].meaning);
       text << "  end\nend\n\n"
            << "subsection Flow\n"
-           << set_line("  ", "Formulation", formulation, "")
+           << set_line("  ", "Velocity components", components,
+                            components == "x y" ? "planar, per metre of depth" :
+                            components == "r z" ? "axisymmetric: x is the radius" :
+                                                  "axisymmetric with swirl u_theta")
            << set_line("  ", "Inertia", "false", "true needs Rheology/Density");
       if (!impeller.empty() && !axisymmetric)
         text << set_line("  ", "Reference frame", "impeller", "steady in the frame turning with the impeller");

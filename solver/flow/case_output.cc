@@ -14,13 +14,13 @@ namespace lentus::flow
     const input::FlowCase &flow = state.physics.flow;
     state.log.line("lentus " + std::string(version) + ": case " + flow.case_file + " on " +
                    std::to_string(state.mesh.n_ranks) + " rank(s)");
-    state.log.line("Fluid: " + flow.fluid.law_name + "; velocity components: " + velocity_components(flow.formulation) +
-                   (flow.inertia ? ", with inertia" : ", creeping flow"));
+    state.log.line("Fluid: " + flow.fluid.law_name + "; velocity components: " + velocity_components(flow.model.formulation) +
+                   (flow.model.inertia ? ", with inertia" : ", creeping flow"));
   }
 
   void write_case_folder(FlowState &state, const report::Summary &summary, report::CaseFolder &folder)
   {
-    if (state.physics.flow.write_fields)
+    if (state.physics.flow.output.write_fields)
       write_fields(state, folder.staging());
     const std::string exit_profile = exit_profile_csv(state);
     const std::string wall_profile = wall_profile_csv(state);

@@ -100,12 +100,12 @@ namespace lentus::flow
         set_pressure[physics.flow.geometry->id_of_role(bc.role)] = bc.pressure;
 
     // Inertia only when switched on (a density may be present for gravity alone).
-    const double rho         = physics.flow.inertia ? physics.density : 0.;
+    const double rho         = physics.flow.model.inertia ? physics.density : 0.;
     const double rho_gravity = physics.density;
-    const double frame_omega = (physics.flow.impeller_frame && kind == FormulationKind::planar) ? physics.flow.impeller_omega() : 0.;
+    const double frame_omega = (physics.flow.model.impeller_frame() && kind == FormulationKind::planar) ? physics.flow.impeller_omega() : 0.;
     Tensor<1, 3> gravity;
-    gravity[0] = physics.flow.gravity[0];
-    gravity[2] = physics.flow.gravity[1];
+    gravity[0] = physics.flow.model.gravity[0];
+    gravity[2] = physics.flow.model.gravity[1];
 
     const AffineConstraints<double> no_constraints;
     if (with_matrix)

@@ -63,7 +63,7 @@ namespace lentus::flow
       unsigned int picard     = 0;
       double       previous   = residual;
       const double reference  = reference_residual > 0. ? reference_residual : first;
-      const double target     = std::max(flow.relative_tolerance * reference, flow.absolute_tolerance);
+      const double target     = std::max(flow.nonlinear.relative_tolerance * reference, flow.nonlinear.absolute_tolerance);
       state.log.line(format("  initial residual %.3e", first));
       outcome.history.begin_solve(label, first);
       if (!std::isfinite(first))
@@ -73,11 +73,11 @@ namespace lentus::flow
         }
       if (residual <= target)
         return true;
-      for (unsigned int iteration = 1; iteration <= flow.max_iterations; ++iteration)
+      for (unsigned int iteration = 1; iteration <= flow.nonlinear.max_iterations; ++iteration)
         {
           Timer              timer;
           const Linearization linearization =
-            (residual / first > flow.picard_until && picard < std::min(flow.max_picard_steps, max_picard_steps)) ?
+            (residual / first > flow.nonlinear.picard_until && picard < std::min(flow.nonlinear.max_picard_steps, max_picard_steps)) ?
               Linearization::picard :
                                                                                       Linearization::newton;
           if (linearization == Linearization::picard)
@@ -161,7 +161,7 @@ namespace lentus::flow
               return false;
             }
         }
-      why = "no convergence in " + std::to_string(flow.max_iterations) + " iterations (residual " +
+      why = "no convergence in " + std::to_string(flow.nonlinear.max_iterations) + " iterations (residual " +
             format("%.3e", residual) + ", target " + format("%.3e", target) + ")";
       return false;
     }
@@ -170,8 +170,9 @@ namespace lentus::flow
     bool use_direct(const FlowState &state)
     {
       const input::FlowCase &flow = state.physics.flow;
-      return flow.linear_solver == "direct" ||
-             (flow.linear_solver == "automatic" && state.mesh.dof_handler.n_dofs() <= flow.direct_limit);
+      return flow.linear.type == input::LinearSolverType::direct ||
+             (flow.linear.type == input::LinearSolverType::automatic &&
+              state.mesh.dof_handler.n_dofs() <= flow.linear.direct_limit);
     }
 
     std::string linear_solver_name(const bool direct)
@@ -209,34 +210,27 @@ namespace lentus::flow
       }
     state.log.line("  direct attempt failed: " + why);
 
-    // Continuation from an easier problem, each step starting from the previous solution:
-    // in the Reynolds number (density) with inertia, else in the regularization exponent M of a
-    // yield-stress fluid, else in the flow index.
+    // Continuation from an easier problem, each step starting from the previous solution: in the
+    // Reynolds number (density) with inertia, else in what the law's registration says makes it hard
+    // (the regularization exponent of a yield-stress fluid, a flow index, ...).
     const input::Fluid &fluid = flow.fluid;
     std::string         key;
     std::vector<double> path;
+    bool                in_density   = false;
     const double        full_density = state.physics.density;
-    if (full_density > 0. && flow.inertia)
+    if (full_density > 0. && flow.model.inertia)
       {
-        key = "Density (Reynolds number)";
+        key        = "Density (Reynolds number)";
+        in_density = true;
         for (const double fraction : {1e-3, 1e-2, 0.1, 0.3, 1.})
           path.push_back(full_density * fraction);
       }
-    else if (fluid.parameters.count("Regularization exponent") && fluid.parameters.at("Yield stress") > 0.)
+    else if (const auto softened = rheology::registry().find(fluid.law_name).continuation_path(fluid.parameters))
       {
-        key            = "Regularization exponent";
-        const double M = fluid.parameters.at(key);
-        for (int k = 4; k >= 0; --k)
-          path.push_back(M * std::pow(10., -0.75 * k));
+        key  = softened->key;
+        path = softened->values;
       }
-    else if (fluid.parameters.count("Flow index") && fluid.parameters.at("Flow index") != 1.)
-      {
-        key            = "Flow index";
-        const double n = fluid.parameters.at(key);
-        for (int k = 0; k <= 5; ++k)
-          path.push_back(1. + (n - 1.) * k / 5.);
-      }
-    if (!flow.continuation || key.empty())
+    if (!flow.nonlinear.continuation || key.empty())
       {
         outcome.reason = why;
         return;
@@ -247,7 +241,7 @@ namespace lentus::flow
       {
         // The softened problem of this step; the case's own physics stays as it is.
         Physics softened = state.physics;
-        if (key.rfind("Density", 0) == 0)
+        if (in_density)
           softened.density = value;
         else
           softened.law = law_with(fluid, key, value);
@@ -283,7 +277,7 @@ namespace lentus::flow
       state.log.line(stage + (stage.empty() ? "Mesh: " : "mesh: ") +
                      std::to_string(state.mesh.triangulation.n_global_active_cells()) + " cells, " +
                      std::to_string(state.mesh.dof_handler.n_dofs()) + " unknowns (Taylor-Hood Q" +
-                     std::to_string(flow.velocity_degree) + "-Q" + std::to_string(flow.velocity_degree - 1) + ")");
+                     std::to_string(flow.model.velocity_degree) + "-Q" + std::to_string(flow.model.velocity_degree - 1) + ")");
     }
 
     /// From the solution interpolated from the coarser mesh; true if converged. The Picard steps
@@ -326,19 +320,18 @@ namespace lentus::flow
   SolveOutcome solve_with_mesh_sequencing(FlowState &state)
   {
     const input::FlowCase &flow = state.physics.flow;
-    const bool   automatic = flow.mesh_sequencing < 0;
-    unsigned int levels    = automatic ? std::min(2u, flow.refinement) :
-                                         static_cast<unsigned int>(flow.mesh_sequencing);
-    create_mesh(state, flow.refinement - levels);
+    const bool   automatic = !flow.nonlinear.mesh_sequencing;
+    unsigned int levels    = automatic ? std::min(2u, flow.geometry_keys.refinement) : *flow.nonlinear.mesh_sequencing;
+    create_mesh(state, flow.geometry_keys.refinement - levels);
     if (automatic && levels > 0)
       {
         state.mesh.dof_handler.distribute_dofs(state.mesh.fe); // to count the unknowns
         const unsigned int chosen = automatic_coarser_levels(
-          static_cast<double>(state.mesh.dof_handler.n_dofs()) * std::pow(4., levels), flow.refinement);
+          static_cast<double>(state.mesh.dof_handler.n_dofs()) * std::pow(4., levels), flow.geometry_keys.refinement);
         if (chosen < levels)
           state.mesh.triangulation.refine_global(levels - chosen);
         else if (chosen > levels)
-          create_mesh(state, flow.refinement - chosen);
+          create_mesh(state, flow.geometry_keys.refinement - chosen);
         levels = chosen;
       }
     setup_dofs(state);

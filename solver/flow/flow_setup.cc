@@ -29,10 +29,10 @@ namespace lentus::flow
 
   Physics::Physics(const input::FlowCase &flow_case)
     : flow(flow_case)
-    , kind(flow_case.formulation)
-    , n_velocity(n_velocity_components(flow_case.formulation))
+    , kind(flow_case.model.formulation)
+    , n_velocity(n_velocity_components(flow_case.model.formulation))
     , law(flow_case.fluid.law)
-    , density(flow_case.inertia || flow_case.gravity[0] != 0. || flow_case.gravity[1] != 0. ? flow_case.fluid.density :
+    , density(flow_case.model.inertia || flow_case.model.gravity[0] != 0. || flow_case.model.gravity[1] != 0. ? flow_case.fluid.density :
                                                                                              0.)
   {}
 
@@ -41,8 +41,8 @@ namespace lentus::flow
     , rank(Utilities::MPI::this_mpi_process(communicator))
     , n_ranks(Utilities::MPI::n_mpi_processes(communicator))
     , triangulation(communicator)
-    , fe(FE_Q<2>(flow_case.velocity_degree), n_velocity_components(flow_case.formulation),
-         FE_Q<2>(flow_case.velocity_degree - 1), 1)
+    , fe(FE_Q<2>(flow_case.model.velocity_degree), n_velocity_components(flow_case.model.formulation),
+         FE_Q<2>(flow_case.model.velocity_degree - 1), 1)
     , dof_handler(triangulation)
   {}
 
@@ -331,10 +331,10 @@ namespace lentus::flow
         const unsigned int              n_components = state.physics.n_velocity + 1;
         const Functions::ZeroFunction<2> zero(n_components);
         // Walls as seen from the frame of reference (the impeller's frame turns at 2 pi N).
-        const double       frame_omega = flow.impeller_frame ? flow.impeller_omega() : 0.;
+        const double       frame_omega = flow.model.impeller_frame() ? flow.impeller_omega() : 0.;
         const WallVelocity fixed_wall(state.physics.kind, n_components, 0., 0., 0., frame_omega);
-        const WallVelocity wall(state.physics.kind, n_components, flow.wall_velocity[0], flow.wall_velocity[1],
-                                flow.rotation_rate, frame_omega);
+        const WallVelocity wall(state.physics.kind, n_components, flow.boundary_keys.wall_velocity[0], flow.boundary_keys.wall_velocity[1],
+                                flow.boundary_keys.rotation_rate, frame_omega);
         const WallVelocity impeller(state.physics.kind, n_components, 0., 0., flow.impeller_omega(), frame_omega);
         for (const input::BoundaryCondition &bc : flow.conditions)
           {
@@ -346,7 +346,7 @@ namespace lentus::flow
               {
                 case input::BoundaryCondition::Type::no_slip:
                   std::fill(mask.begin(), mask.begin() + state.physics.n_velocity, true);
-                  if (!homogeneous && flow.impeller_frame)
+                  if (!homogeneous && flow.model.impeller_frame())
                     values = &fixed_wall;
                   break;
                 case input::BoundaryCondition::Type::impeller:

@@ -67,12 +67,12 @@ namespace lentus::flow
     if (has_impeller(state))
       {
         report::Impeller impeller;
-        impeller.rotation_speed        = flow.rotation_speed;
+        impeller.rotation_speed        = flow.operating.rotation_speed;
         impeller.diameter              = flow.geometry->impeller_diameter();
         impeller.density               = flow.fluid.density;
-        impeller.metzner_otto_constant = flow.metzner_otto_constant;
+        impeller.metzner_otto_constant = flow.vessel.metzner_otto_constant;
         report::add_vessel_numbers(formulation, *state.physics.law, impeller, integrals, vessel_integrals(state), numbers);
-        summary.dead_zone_fraction = flow.dead_zone_fraction;
+        summary.dead_zone_fraction = flow.vessel.dead_zone_fraction;
       }
     report::add_energy_and_region_numbers(formulation, state.physics.law->yield_stress(), integrals, numbers);
     mark_default_key_numbers(numbers);

@@ -28,7 +28,7 @@ namespace lentus::flow
   Tensor<1, 3> fixed_frame_velocity(const FlowState &state, const Point<2> &x, const Tensor<1, 3> &U)
   {
     Tensor<1, 3> lab = U;
-    if (state.physics.flow.impeller_frame && state.physics.kind == FormulationKind::planar)
+    if (state.physics.flow.model.impeller_frame() && state.physics.kind == FormulationKind::planar)
       {
         const double omega = state.physics.flow.impeller_omega();
         lab[0] -= omega * x[1];
@@ -67,7 +67,7 @@ namespace lentus::flow
     const input::FlowCase &flow         = state.physics.flow;
     const bool             axisymmetric = is_axisymmetric(state.physics.kind);
     const double           tau_y        = state.physics.law->yield_stress();
-    const double           tip_speed    = M_PI * flow.rotation_speed * flow.geometry->impeller_diameter();
+    const double           tip_speed    = M_PI * flow.operating.rotation_speed * flow.geometry->impeller_diameter();
     std::set<types::boundary_id> impeller_ids;
     const auto                   roles = flow.geometry->boundary_roles();
     for (const input::BoundaryCondition &bc : flow.conditions)
@@ -109,7 +109,7 @@ namespace lentus::flow
               const double       gamma_dot = shear_rate(u.L);
               const bool         unyielded  = tau_y > 0. && state.physics.law->evaluate(gamma_dot).value * gamma_dot < tau_y;
               const double       speed      = fixed_frame_velocity(state, x, u.U).norm();
-              const bool         dead       = unyielded || speed < flow.dead_zone_fraction * tip_speed;
+              const bool         dead       = unyielded || speed < flow.vessel.dead_zone_fraction * tip_speed;
               sums[0] += fe_values.JxW(q);
               sums[1] += w;
               if (dead)

@@ -3,20 +3,6 @@
 
 namespace lentus
 {
-  std::string to_string(const FormulationKind kind)
-  {
-    switch (kind)
-      {
-        case FormulationKind::planar:
-          return "planar";
-        case FormulationKind::axisymmetric:
-          return "axisymmetric";
-        case FormulationKind::swirl:
-          return "axisymmetric with swirl";
-      }
-    return "";
-  }
-
   const char *velocity_components(const FormulationKind kind)
   {
     switch (kind)

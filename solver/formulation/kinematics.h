@@ -28,9 +28,6 @@ namespace lentus
     swirl
   };
 
-  /// "planar", "axisymmetric", "axisymmetric with swirl".
-  std::string to_string(FormulationKind kind);
-
   /// Velocity components on the 2D mesh: 2, 2, 3.
   inline unsigned int n_velocity_components(const FormulationKind kind)
   {

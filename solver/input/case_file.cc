@@ -78,6 +78,21 @@ namespace lentus::input
     }
   } // namespace
 
+  void check_value(const std::string &file, const int line, const KeyDeclaration &declaration,
+                   const std::string &value)
+  {
+    if (value.empty())
+      throw InputError(file, line, declaration.path,
+                       declaration.path + " = (empty): no value; allowed: " + declaration.kind.describe() +
+                         (declaration.default_value.empty() ? std::string() :
+                                                              " (or remove the line for the default, " +
+                                                                declaration.default_value + ")"));
+    if (const auto problem = declaration.kind.problem(value))
+      throw InputError(file, line, declaration.path,
+                       declaration.path + " = " + value + ": " + *problem + "; allowed: " +
+                         declaration.kind.describe());
+  }
+
   void CaseSchema::declare(const std::string &path,
                            const std::string &default_value,
                            const ValueKind &kind,
@@ -214,19 +229,16 @@ namespace lentus::input
             if (!declaration)
               {
                 const auto known = schema.keys_in(current);
-                throw InputError(name, first_line,
+                throw InputError(name, first_line, path,
                                  path + ": unknown key in " + describe_section(current) + suggestion(key, known) +
                                    "; allowed keys: " + join(known));
               }
             const auto previous = result.given.find(path);
             if (previous != result.given.end())
-              throw InputError(name, first_line,
+              throw InputError(name, first_line, path,
                                path + ": set twice (first on line " + std::to_string(previous->second.line) +
                                  "); keep one");
-            if (!value.empty())
-              if (const auto problem = declaration->kind.problem(value))
-                throw InputError(name, first_line,
-                                 path + " = " + value + ": " + *problem + "; allowed: " + declaration->kind.describe());
+            check_value(name, first_line, *declaration, value);
             result.given[path] = {value, first_line};
           }
         else if (keyword == "include")
@@ -241,7 +253,7 @@ namespace lentus::input
 
     for (const std::string &assignment : overrides)
       {
-        const std::string where  = "command line (--set)";
+        const std::string where  = InputError::command_line_overrides;
         const auto        equals = assignment.find('=');
         if (equals == std::string::npos)
           throw InputError(where, 0, assignment + ": expected --set Section/Key=value");
@@ -260,13 +272,11 @@ namespace lentus::input
                     key.path[key.path.size() - path.size() - 1] == '/')
                   same_leaf = " (did you mean '" + key.path + "'?)";
               }
-            throw InputError(where, 0,
+            throw InputError(where, 0, path,
                              path + ": unknown key" + (same_leaf.empty() ? suggestion(path, all) : same_leaf) +
                                "; keys are written Section/Subsection/Key as in the case file");
           }
-        if (!value.empty())
-          if (const auto problem = declaration->kind.problem(value))
-            throw InputError(where, 0, path + " = " + value + ": " + *problem + "; allowed: " + declaration->kind.describe());
+        check_value(where, 0, *declaration, value);
         result.given[path] = {value, 0};
       }
 
@@ -319,6 +329,14 @@ namespace lentus::input
     return get(path).empty() ? std::numeric_limits<double>::quiet_NaN() : get_real(path);
   }
 
+  const KeyDeclaration &CaseFile::declaration(const std::string &path) const
+  {
+    const KeyDeclaration *found = schema->find(path);
+    if (!found)
+      throw std::logic_error("undeclared case-file key " + path);
+    return *found;
+  }
+
   int CaseFile::line_of(const std::string &path) const
   {
     const auto found = given.find(path);
@@ -338,8 +356,8 @@ namespace lentus::input
     const auto  found = given.find(path);
     const bool  from_command_line = found != given.end() && found->second.line == 0;
     std::string value = get(path);
-    throw InputError(from_command_line ? "command line (--set)" : name, from_command_line ? 0 : line_of(path),
-                     path + " = " + (value.empty() ? std::string("(not set)") : value) + ": " + problem +
+    throw InputError(from_command_line ? InputError::command_line_overrides : name,
+                     from_command_line ? 0 : line_of(path), path, path + " = " + (value.empty() ? std::string("(not set)") : value) + ": " + problem +
                        "; allowed: " + allowed);
   }
 
@@ -364,6 +382,17 @@ namespace lentus::input
       }
     std::ostringstream text;
     prm.print_parameters(text, dealii::ParameterHandler::Text);
-    return text.str();
+    // A key without a value is written as a comment: an empty value is bad input when read back.
+    std::istringstream printed(text.str());
+    std::string        complete, line;
+    while (std::getline(printed, line))
+      {
+        const std::string content = trim(line);
+        const auto        indent  = line.substr(0, line.find_first_not_of(' '));
+        if (content.rfind("set ", 0) == 0 && content.back() == '=')
+          line = indent + "# " + trim(content.substr(0, content.size() - 1)) + " = (not set)";
+        complete += line + "\n";
+      }
+    return complete;
   }
 } // namespace lentus::input

@@ -21,6 +21,10 @@ namespace lentus::input
     std::string documentation; ///< meaning and unit
   };
 
+  /// Throws InputError (file, line, key) unless `value` suits the key. An empty value is bad input
+  /// too: it would silently stand for the default or for "not set", which its writer cannot have meant.
+  void check_value(const std::string &file, int line, const KeyDeclaration &declaration, const std::string &value);
+
   /// Every section and key a case file may contain.
   class CaseSchema
   {
@@ -69,6 +73,9 @@ namespace lentus::input
 
     /// The value as a real number, NaN if it is not set.
     double get_real_or_nan(const std::string &path) const;
+
+    /// The schema's declaration of a key (its kind, default and meaning).
+    const KeyDeclaration &declaration(const std::string &path) const;
 
     /// Line of the key's `set`; else of its section's `subsection`; else 0.
     int line_of(const std::string &path) const;

@@ -112,7 +112,7 @@ namespace lentus::sweep
       if (schema.find(path))
         {
           if (path == "Output/Folder")
-            throw InputError(file, line,
+            throw InputError(file, line, path,
                              path + ": set by the sweep runner (each case gets <results folder>/cases/<case id>); "
                                     "allowed: any other key; set the sweep's folder with 'results folder = FOLDER'");
           return;
@@ -136,7 +136,7 @@ namespace lentus::sweep
       const std::string hint = !same_leaf.empty() ? " (did you mean '" + same_leaf + "'?)" :
                                !best.empty()      ? " (did you mean '" + best + "'?)" :
                                                     std::string();
-      throw InputError(file, line,
+      throw InputError(file, line, path,
                        path + ": unknown key" + hint +
                          "; allowed: a case-file key written Section/Subsection/Key (lentus laws lists the fluids' keys)");
     }
@@ -144,12 +144,7 @@ namespace lentus::sweep
     void Parser::check_value(const std::string &file, const int line, const std::string &path,
                              const std::string &value) const
     {
-      const input::KeyDeclaration *declaration = schema.find(path);
-      if (value.empty())
-        throw InputError(file, line, path + " = (empty): a value is needed; allowed: " + declaration->kind.describe());
-      if (const auto problem = declaration->kind.problem(value))
-        throw InputError(file, line,
-                         path + " = " + value + ": " + *problem + "; allowed: " + declaration->kind.describe());
+      input::check_value(file, line, *schema.find(path), value);
     }
 
     void Parser::claim_key(const std::string &file, const int line, const std::string &path)
@@ -485,7 +480,7 @@ namespace lentus::sweep
       // Command-line --set: fixed in every case.
       for (const std::string &assignment : settings.sets)
         {
-          const std::string where  = "command line (--set)";
+          const std::string where  = InputError::command_line_overrides;
           const auto        equals = assignment.find('=');
           if (equals == std::string::npos)
             throw InputError(where, 0, assignment + ": expected --set Section/Key=value");
@@ -640,19 +635,17 @@ namespace lentus::sweep
 
     /// Rewrites a flow-case reader message about an overridden key so that it
     /// points at the sweep line that set the key.
-    std::string locate(const std::string &message, const SweepPlan &plan, const SweepCase &sweep_case)
+    /// The reason a case cannot run: a problem with a value the sweep set (reaching the case as a
+    /// command-line override) is placed at the sweep line that set it; anything else at the sweep file.
+    std::string locate(const std::exception &error, const SweepPlan &plan, const SweepCase &sweep_case)
     {
-      const std::string prefix = "command line (--set): ";
-      const std::string label  = sweep_case.id + (sweep_case.name.empty() ? "" : " (" + sweep_case.name + ")");
-      if (message.rfind(prefix, 0) == 0)
-        {
-          const std::string rest = message.substr(prefix.size());
-          for (const Override &value : sweep_case.overrides)
-            if (rest.rfind(value.path + " ", 0) == 0 || rest.rfind(value.path + ":", 0) == 0)
-              return value.file + (value.line > 0 ? ":" + std::to_string(value.line) : std::string()) + ": " + label +
-                     ": " + rest;
-        }
-      return plan.sweep_file + ": " + label + ": " + message;
+      const std::string label = sweep_case.id + (sweep_case.name.empty() ? "" : " (" + sweep_case.name + ")");
+      if (const auto *input = dynamic_cast<const InputError *>(&error); input && input->from_overrides())
+        for (const Override &value : sweep_case.overrides)
+          if (value.path == input->key())
+            return value.file + (value.line > 0 ? ":" + std::to_string(value.line) : std::string()) + ": " + label +
+                   ": " + input->detail();
+      return plan.sweep_file + ": " + label + ": " + error.what();
     }
   } // namespace
 
@@ -750,7 +743,7 @@ namespace lentus::sweep
           }
         catch (const std::exception &error) // InputError, or a law's own complaint
           {
-            sweep_case.invalid_reason = locate(error.what(), plan, sweep_case);
+            sweep_case.invalid_reason = locate(error, plan, sweep_case);
           }
       }
     return plan;

@@ -11,7 +11,7 @@
 //   vary Rheology/Herschel-Bulkley/Yield stress = linear 10 to 60, 6 values
 //   vary Geometry/Pipe/Radius = logarithmic 0.01 to 0.04, 3 values
 //   table      = points.csv                  # header: key paths; one case per row
-//   cases from = out/fit_paste/sweep.prm     # the case blocks of another sweep file
+//   cases from = out/fit_paste/samples.sweep     # the case blocks of another sweep file
 //   case NAME                                # explicit cases (format 1)
 //     Section/Subsection/Key = value
 //   end

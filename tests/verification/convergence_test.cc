@@ -28,7 +28,7 @@ subsection Geometry
   subsection )" + shape + (pipe ? "\n    set Radius = 1\n    set Length = 1\n" : "\n    set Height = 1\n    set Length = 1\n") + R"(  end
 end
 subsection Flow
-  set Formulation = )" + (pipe ? "axisymmetric" : "planar") + R"(
+  set Velocity components = )" + (pipe ? "r z" : "x y") + R"(
 end
 subsection Boundary conditions
   set No-slip = )" + (pipe ? "wall\n  set Axis = axis" : "bottom wall, top wall") + R"(
@@ -142,7 +142,7 @@ subsection Geometry
   end
 end
 subsection Flow
-  set Formulation = axisymmetric
+  set Velocity components = r z
 end
 subsection Boundary conditions
   set No-slip = wall

@@ -36,7 +36,7 @@ subsection Geometry
   end
 end
 subsection Flow
-  set Formulation = axisymmetric with swirl
+  set Velocity components = r z theta
 end
 subsection Boundary conditions
   set Moving wall = inner wall

@@ -32,7 +32,7 @@ namespace
   end
 end
 subsection Flow
-  set Formulation = axisymmetric
+  set Velocity components = r z
 end
 subsection Boundary conditions
   set No-slip         = wall)" + (mandrel > 0. ? ", mandrel" : "\n  set Axis            = axis") + R"(
@@ -233,7 +233,7 @@ TEST(AnnularPipe, PowerLawPressureDropMatchesExactForm)
   end
 end
 subsection Flow
-  set Formulation = axisymmetric
+  set Velocity components = r z
 end
 subsection Boundary conditions
   set No-slip         = inner wall, outer wall

@@ -90,7 +90,7 @@ TEST(GmshMesh, PowerLawPipeFromMsh41)
   const double Q      = M_PI * n / (3. * n + 1.);
   const auto   result = run_case("gmsh_power_law_pipe", power_law(n) + gmsh_geometry("pipe.msh", 1., 3) + R"(
 subsection Flow
-  set Formulation = axisymmetric
+  set Velocity components = r z
 end
 subsection Boundary conditions
   set No-slip = wall

@@ -34,7 +34,7 @@ subsection Geometry
   end
 end
 subsection Flow
-  set Formulation = planar
+  set Velocity components = x y
   set Inertia     = )") + (inertia ? "true" : "false") + R"(
 end
 subsection Boundary conditions
@@ -73,7 +73,7 @@ subsection Geometry
   end
 end
 subsection Flow
-  set Formulation = axisymmetric
+  set Velocity components = r z
 end
 subsection Boundary conditions
   set No-slip       = tube wall, inlet, outlet

@@ -30,7 +30,7 @@ subsection Geometry
   end
 end
 subsection Flow
-  set Formulation = planar
+  set Velocity components = x y
   set Reference frame = impeller
   set Inertia = )" + (inertia ? "true" : "false") + R"(
 end
@@ -155,7 +155,7 @@ subsection Geometry
   end
 end
 subsection Flow
-  set Formulation = axisymmetric with swirl
+  set Velocity components = r z theta
 end
 subsection Operating point
   set Rotation speed = 0.15915494309189535
@@ -211,7 +211,7 @@ subsection Geometry
   end
 end
 subsection Flow
-  set Formulation = axisymmetric with swirl
+  set Velocity components = r z theta
 end
 subsection Boundary conditions
   set Impeller = impeller

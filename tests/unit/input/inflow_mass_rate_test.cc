@@ -29,7 +29,7 @@ subsection Geometry
   end
 end
 subsection Flow
-  set Formulation = axisymmetric
+  set Velocity components = r z
 end
 subsection Boundary conditions
   set No-slip = wall

@@ -64,7 +64,7 @@ $EndElements
   }
 
   /// Writes `mesh` next to the test and returns a case using it (case file "case.prm" in the same folder).
-  std::string case_with_mesh(const std::string &mesh, const std::string &formulation = "planar",
+  std::string case_with_mesh(const std::string &mesh, const std::string &components = "x y",
                              const std::string &conditions = "  set No-slip = wall\n  set Pressure = inlet, outlet\n"
                                                              "  set Pressure values = 1, 0\n")
   {
@@ -85,7 +85,7 @@ subsection Geometry
   end
 end
 subsection Flow
-  set Formulation = )" + formulation + R"(
+  set Velocity components = )" + components + R"(
 end
 subsection Boundary conditions
 )" + conditions + "end\n";
@@ -135,7 +135,7 @@ TEST_F(GmshMeshFile, RolesCellsScaleAndMaterials)
 {
   const input::FlowCase flow =
     input::read_flow_case(input::CaseFile::parse(case_with_mesh(two_squares), "case.prm", input::case_schema()));
-  EXPECT_EQ(flow.shape_name, "Gmsh mesh");
+  EXPECT_EQ(flow.geometry_keys.shape, "Gmsh mesh");
   EXPECT_EQ(flow.mesh_file, "gmsh_unit_test.msh");
   EXPECT_EQ(flow.geometry->role_names(), (std::vector<std::string>{"inlet", "outlet", "wall"}));
   dealii::Triangulation<2> triangulation;
@@ -205,18 +205,18 @@ TEST_F(GmshMeshFile, RejectsUnnamedAndUnusablePhysicalCurves)
 TEST_F(GmshMeshFile, AxisymmetricNeedsPositiveRadius)
 {
   const std::string shifted = replaced(two_squares, "1 0 0 0\n", "1 -0.5 0 0\n");
-  EXPECT_THAT(message_of(case_with_mesh(shifted, "axisymmetric",
+  EXPECT_THAT(message_of(case_with_mesh(shifted, "r z",
                                         "  set No-slip = wall, inlet\n  set Traction-free = outlet\n")),
               HasSubstr("case.prm:12: Geometry/Gmsh mesh/File = gmsh_unit_test.msh: mesh file line 13: node 1 lies at "
-                        "x = -0.005 m (after scaling), but Flow/Formulation = axisymmetric takes x as the radius r"));
+                        "x = -0.005 m (after scaling), but Flow/Velocity components = r z takes x as the radius r"));
   // The same mesh is fine when planar.
-  EXPECT_EQ(message_of(case_with_mesh(shifted, "planar", "  set No-slip = wall, inlet\n  set Traction-free = outlet\n")),
+  EXPECT_EQ(message_of(case_with_mesh(shifted, "x y", "  set No-slip = wall, inlet\n  set Traction-free = outlet\n")),
             "(no error)");
 }
 
 TEST_F(GmshMeshFile, RolesOfTheMeshInConditions)
 {
-  EXPECT_THAT(message_of(case_with_mesh(two_squares, "planar",
+  EXPECT_THAT(message_of(case_with_mesh(two_squares, "x y",
                                         "  set No-slip = wall, exit\n  set Pressure = inlet, outlet\n"
                                         "  set Pressure values = 1, 0\n")),
               HasSubstr("Boundary conditions/No-slip = wall, exit: 'exit' is not a boundary role of Gmsh mesh "
@@ -231,14 +231,14 @@ TEST_F(GmshMeshFile, RolesOfTheMeshInConditions)
 TEST_F(GmshMeshFile, InflowOnOneSegment)
 {
   // The developed inflow profile of an axisymmetric case reaches from the axis at one z.
-  EXPECT_THAT(message_of(case_with_mesh(two_squares, "axisymmetric",
+  EXPECT_THAT(message_of(case_with_mesh(two_squares, "r z",
                                         "  set No-slip = wall, inlet\n  set Inflow = outlet\n"
                                         "  set Inflow rates = 1e-6\n")),
               HasSubstr("case.prm:21: Boundary conditions/Inflow = outlet: role 'outlet' of Gmsh mesh "
                         "gmsh_unit_test.msh spans x (r) from 0.02 to 0.02 m and y (z) from 0 to 0.01 m; allowed: an "
                         "axisymmetric inflow at one z, from the axis r = 0 to a wall or between two walls"));
   // Planar: the same role is one straight segment from wall to wall.
-  EXPECT_EQ(message_of(case_with_mesh(two_squares, "planar",
+  EXPECT_EQ(message_of(case_with_mesh(two_squares, "x y",
                                       "  set No-slip = wall, inlet\n  set Inflow = outlet\n"
                                       "  set Inflow rates = 1e-6\n")),
             "(no error)");

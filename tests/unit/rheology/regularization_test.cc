@@ -67,7 +67,9 @@ TEST(Regularization, StressTendsToIdealBinghamAsMGrows)
           EXPECT_LE(error, previous_error + 1e-14 * ideal) << "gamma_dot = " << g << ", M = " << M;
           EXPECT_NEAR(error, tau_y * std::exp(-M * g), 1e-12 * ideal + 1e-9 * tau_y * std::exp(-M * g));
           if (M * g >= 40.)
-            EXPECT_LT(error, 1e-12 * ideal);
+            {
+              EXPECT_LT(error, 1e-12 * ideal);
+            }
           previous_error = error;
         }
     }

@@ -299,7 +299,7 @@ namespace
 
   TEST(SweepFile, CasesFromAnotherFileJoinTheCaseList)
   {
-    const std::string list = temporary_file("fit_sweep.prm", "# as lentus fit writes it\ncase fitted\n  " + n_key +
+    const std::string list = temporary_file("fit_samples.sweep", "# as lentus fit writes it\ncase fitted\n  " + n_key +
                                                                 "= 0.4\nend\ncase sample-001\n  " + n_key + " = 0.5\nend\n");
     const auto plan = parse("cases from = " + list + "\nvary " + p_key + " = 100, 0; 200, 0\n");
     ASSERT_EQ(plan.cases.size(), 4u);

@@ -1,0 +1,166 @@
+#include "solver/input/flow_sections.h"
+
+#include "meshes/geometry.h"
+#include "meshes/gmsh_mesh.h"
+#include "solver/input/section_keys.h"
+
+namespace lentus::input
+{
+  using rheology::Range;
+
+  const std::vector<ConditionKey> &condition_keys()
+  {
+    static const std::vector<ConditionKey> keys = {
+      {"No-slip", BoundaryCondition::Type::no_slip, "Roles where the fluid sticks to a fixed wall: u = 0."},
+      {"Moving wall", BoundaryCondition::Type::moving_wall,
+       "Roles of walls that move: u = Wall velocity + Rotation rate x r (swirl: u_theta = Rotation rate * r)."},
+      {"Pressure", BoundaryCondition::Type::pressure,
+       "Roles of fully developed inlets and outlets at a set pressure (Pressure values): tangential velocity 0, "
+       "normal stress -p."},
+      {"Traction-free", BoundaryCondition::Type::traction_free,
+       "Roles of outflows with zero traction (do-nothing); not exact for developed flow at a die exit."},
+      {"Symmetry", BoundaryCondition::Type::symmetry, "Roles of symmetry planes or slip walls: u . n = 0."},
+      {"Axis", BoundaryCondition::Type::axis, "Roles on the axis r = 0 (axisymmetric): u_r = 0, u_theta = 0."},
+      {"Inflow", BoundaryCondition::Type::inflow,
+       "Roles where the fluid enters fully developed, with the profile of its own viscosity law carrying the "
+       "flow rate of Inflow rates (a slit from wall to wall or half of one beside a Symmetry role; a pipe "
+       "from the axis to the wall, or an annulus between two walls)."},
+      {"Uniform inflow", BoundaryCondition::Type::uniform_inflow,
+       "Roles where the fluid enters with the same normal speed everywhere (Inflow speeds), e.g. a plug "
+       "or a far-field stream; the tangential velocity is 0."},
+      {"Impeller", BoundaryCondition::Type::impeller,
+       "Roles that turn with the impeller at Operating point/Rotation speed N: u_theta = 2 pi N r (swirl), "
+       "u = 2 pi N e_z x r (planar, fixed frame); at rest when solved in the impeller's frame."},
+    };
+    return keys;
+  }
+
+  void GeometrySection::bind(SectionKeys &keys)
+  {
+    std::vector<std::string> shape_names;
+    for (const meshes::ShapeInfo &info : meshes::shapes())
+      shape_names.push_back(info.name);
+    shape_names.push_back(meshes::gmsh_mesh_shape);
+    keys.selection("Shape", shape, shape_names,
+              "Which shape; its dimensions (for Gmsh mesh: the mesh file) are set in the subsection of the "
+              "same name.");
+    keys.integer("Refinement", refinement, 0, 12,
+                 "Number of uniform refinements of the coarse mesh (each halves the cell size).");
+  }
+
+  void GmshMeshSection::bind(SectionKeys &keys)
+  {
+    keys.text("File", file,
+              "Path of a 2D quadrilateral mesh saved by Gmsh (MSH 2.2 or 4.1, ASCII), relative to the case "
+              "file's folder; the names of its physical curves are the boundary roles.");
+    keys.real("Scale", scale, Range::above(0.), "Length of one mesh unit [m], e.g. 0.001 for a mesh drawn in millimetres.");
+  }
+
+  void FlowSection::bind(SectionKeys &keys)
+  {
+    keys.choice<FormulationKind>("Velocity components", formulation,
+                                 {{"x y", FormulationKind::planar},
+                                  {"r z", FormulationKind::axisymmetric},
+                                  {"r z theta", FormulationKind::swirl}},
+                                 "The velocity components solved for. x y: planar flow (u_x, u_y), totals per metre "
+                                 "of depth; r z: axisymmetric flow (u_r, u_z) with the mesh's x as the radius r and "
+                                 "y as the axial coordinate z; r z theta: axisymmetric with swirl, also the "
+                                 "circumferential u_theta.");
+    keys.boolean("Inertia", inertia, "Include the inertia term rho (u . grad) u (needs Rheology/Density).");
+    std::vector<double> g(gravity.begin(), gravity.end());
+    keys.reals("Gravity", g, Range::any(),
+               "Body force per unit mass g [m/s^2], two mesh components (x, y) or (r, z); needs Density if not 0.", 2);
+    gravity = {{g[0], g[1]}};
+    keys.choice<ReferenceFrame>("Reference frame", frame,
+                                {{"fixed", ReferenceFrame::fixed}, {"impeller", ReferenceFrame::impeller}},
+                                "fixed: the laboratory frame; impeller (planar only): the frame turning with the "
+                                "impeller at the rotation speed, where a bladed impeller's flow is steady; fixed "
+                                "walls then move at -2 pi N e_z x r, and with inertia the Coriolis and centrifugal "
+                                "forces act.");
+    keys.integer("Velocity degree", velocity_degree, 2, 4,
+                 "Polynomial degree of the velocity (Taylor-Hood: pressure one lower).");
+  }
+
+  void OperatingPointSection::bind(SectionKeys &keys)
+  {
+    keys.real("Rotation speed", rotation_speed, Range::at_least(0.),
+              "N [rev/s]: rotation speed of the roles listed under Boundary conditions/Impeller "
+              "(counter-clockwise about the axis or the origin).");
+  }
+
+  void VesselSection::bind(SectionKeys &keys)
+  {
+    keys.real("Metzner-Otto constant", metzner_otto_constant, Range::above(0.),
+              "k_s [-]: effective shear rate k_s N for the apparent viscosity of the Metzner-Otto Reynolds "
+              "number (Metzner & Otto 1957; about 10-13 for turbines).");
+    keys.real("Dead-zone speed fraction", dead_zone_fraction, Range::at_least(0.),
+              "[-]: fluid slower than this fraction of the impeller tip speed pi N D counts as dead, as "
+              "does unyielded fluid.");
+  }
+
+  void BoundaryConditionsSection::bind(SectionKeys &keys)
+  {
+    roles.resize(condition_keys().size());
+    for (std::size_t c = 0; c < condition_keys().size(); ++c)
+      keys.names(condition_keys()[c].key, roles[c],
+                 std::string(condition_keys()[c].documentation) + " Comma-separated role names of the shape.");
+    keys.reals("Pressure values", pressures, Range::any(),
+               "p [Pa] for each role listed under Pressure, in the same order.");
+    keys.reals("Inflow rates", inflow_rates, Range::any(),
+               "Q into the domain for each role listed under Inflow, in order: [m^3/s] axisymmetric, "
+               "[m^2/s] per metre of depth planar.");
+    keys.reals("Inflow mass rates", inflow_mass_rates, Range::any(),
+               "Instead of Inflow rates: mass flow rate into the domain for each role listed under Inflow, in "
+               "order: [kg/s] axisymmetric, [kg/(s m)] per metre of depth planar; divided by Rheology/Density.");
+    keys.reals("Inflow speeds", inflow_speeds, Range::any(),
+               "U [m/s] normal speed into the domain for each role listed under Uniform inflow, in order.");
+    keys.reals("Wall velocity", wall_velocity, Range::any(),
+               "[m/s] velocity of the moving walls, two mesh components (x, y) or (r, z).", 2);
+    keys.real("Rotation rate", rotation_rate, Range::any(),
+              "Omega [rad/s] of the moving walls about the axis (swirl) or the origin (planar).");
+  }
+
+  void NonlinearSolverSection::bind(SectionKeys &keys)
+  {
+    keys.real("Relative tolerance", relative_tolerance, Range::above(0.),
+              "Converged when the residual norm falls below this fraction of the first one [-].");
+    keys.real("Absolute tolerance", absolute_tolerance, Range::at_least(0.),
+              "... or below this absolute value (residual in N per radian or per metre depth).");
+    keys.integer("Maximum iterations", max_iterations, 1, 10000, "Newton and Picard iterations per solve.");
+    keys.real("Picard until", picard_until, Range::above(0.),
+              "Picard steps while residual / first residual is above this, then Newton [-].");
+    keys.integer("Maximum Picard steps", max_picard_steps, 0, 10000, "Picard steps at most before Newton takes over.");
+    keys.boolean("Continuation", continuation,
+                 "When a solve fails, approach the case by continuation from an easier one: in the density "
+                 "(Reynolds number) with inertia, else in what the viscosity law names (the regularization "
+                 "exponent M of a yield-stress fluid, or the flow index from 1).");
+    keys.choice<std::optional<unsigned int>>(
+      "Mesh sequencing", mesh_sequencing,
+      {{"automatic", std::nullopt}, {"0", 0u}, {"1", 1u}, {"2", 2u}, {"3", 3u}, {"4", 4u}},
+      "Solve first on meshes this many levels coarser than Geometry/Refinement, each finer mesh "
+      "starting from the solution interpolated from the one before: fewer and cheaper Newton steps "
+      "on large meshes. automatic: none up to 30000 unknowns; above, at least 2 levels and as many "
+      "as bring the first mesh down to about 15000 unknowns (at most 4).");
+  }
+
+  void LinearSolverSection::bind(SectionKeys &keys)
+  {
+    keys.choice<LinearSolverType>("Type", type,
+                                  {{"automatic", LinearSolverType::automatic},
+                                   {"direct", LinearSolverType::direct},
+                                   {"iterative", LinearSolverType::iterative}},
+                                  "direct: sparse LU (MUMPS); iterative: FGMRES with a block-triangular "
+                                  "preconditioner (AMG on velocity, 1/eta-weighted pressure mass matrix).");
+    keys.integer("Direct up to", direct_limit, 1, 1000000000,
+                 "automatic chooses the direct solver up to this many unknowns.");
+  }
+
+  void OutputSection::bind(SectionKeys &keys)
+  {
+    keys.text("Folder", folder, "Folder for the results; default out/<case name> next to the working directory.");
+    keys.boolean("Write fields", write_fields, "Write VTU/PVD field files.");
+    keys.boolean("Write pictures", write_pictures,
+                 "lentus run: draw PNG pictures and report.html into the folder (scripts/draw_case.py, needs "
+                 "python3-matplotlib); not in sweeps.");
+  }
+} // namespace lentus::input

@@ -1,0 +1,160 @@
+// The sections of a flow case, each a typed struct that owns its keys: `bind` declares them
+// (the members' initial values are the defaults) and reads them (section_keys.h). Checks that
+// relate keys of several sections are made in read_flow_case().
+#pragma once
+
+#include "solver/formulation/kinematics.h"
+
+#include <array>
+#include <optional>
+#include <string>
+#include <vector>
+
+namespace lentus::input
+{
+  class SectionKeys;
+
+  /// One boundary condition on one role.
+  struct BoundaryCondition
+  {
+    enum class Type
+    {
+      no_slip,       ///< u = 0
+      moving_wall,   ///< u = wall velocity + rotation
+      pressure,      ///< fully developed: tangential u = 0, normal stress = -p
+      traction_free, ///< sigma n = 0 ("do-nothing")
+      symmetry,      ///< u . n = 0, zero tangential traction
+      axis,          ///< r = 0: u_r = 0, u_theta = 0
+      inflow,        ///< fully developed profile of the fluid's own law carrying a set flow rate
+      uniform_inflow, ///< the same normal speed into the domain across the role
+      impeller       ///< turns with the impeller at the rotation speed (at rest in the impeller's frame)
+    };
+    std::string role;
+    Type        type;
+    double      pressure  = 0.; ///< [Pa], for Type::pressure
+    double      flow_rate = 0.; ///< into the domain, [m^3/s] (axisymmetric) or [m^2/s] (planar), for Type::inflow
+    double      speed     = 0.; ///< normal speed into the domain [m/s], for Type::uniform_inflow
+  };
+
+  /// A condition's key under Boundary conditions, e.g. "No-slip", and its meaning.
+  struct ConditionKey
+  {
+    const char             *key;
+    BoundaryCondition::Type type;
+    const char             *documentation;
+  };
+
+  /// Every condition key, in the order a case file's roles are assigned.
+  const std::vector<ConditionKey> &condition_keys();
+
+  /// subsection Geometry: which shape (its dimensions are the shape's own subsection) and how fine.
+  struct GeometrySection
+  {
+    std::string  shape;          ///< a catalogue shape or "Gmsh mesh"; "" when not set
+    unsigned int refinement = 3; ///< uniform halvings of the coarse cells
+
+    void bind(SectionKeys &keys);
+  };
+
+  /// subsection Geometry/Gmsh mesh: an imported mesh.
+  struct GmshMeshSection
+  {
+    std::string file;       ///< as written, relative to the case file's folder; "" when not set
+    double      scale = 1.; ///< [m] per mesh unit
+
+    void bind(SectionKeys &keys);
+  };
+
+  enum class ReferenceFrame
+  {
+    fixed,
+    impeller ///< turning with the impeller (planar only)
+  };
+
+  /// subsection Flow: what is solved for.
+  struct FlowSection
+  {
+    FormulationKind       formulation = FormulationKind::planar; ///< key "Velocity components"
+    bool                  inertia     = false;
+    std::array<double, 2> gravity{{0., 0.}}; ///< [m/s^2], mesh components
+    ReferenceFrame        frame           = ReferenceFrame::fixed;
+    unsigned int          velocity_degree = 2;
+
+    bool impeller_frame() const { return frame == ReferenceFrame::impeller; }
+
+    void bind(SectionKeys &keys);
+  };
+
+  /// subsection Operating point (the flow's part; the temperature is the fluid's).
+  struct OperatingPointSection
+  {
+    double rotation_speed = 0.; ///< N [rev/s] of the Impeller roles
+
+    void bind(SectionKeys &keys);
+  };
+
+  /// subsection Vessel: how stirred-vessel numbers are formed.
+  struct VesselSection
+  {
+    double metzner_otto_constant = 11.5; ///< k_s [-]: effective shear rate k_s N
+    double dead_zone_fraction    = 0.01; ///< dead: slower than this x tip speed [-]
+
+    void bind(SectionKeys &keys);
+  };
+
+  /// subsection Boundary conditions as written: roles by condition and the values that go with them.
+  struct BoundaryConditionsSection
+  {
+    /// Role lists, in the order of condition_keys() (No-slip, Moving wall, ...).
+    std::vector<std::vector<std::string>> roles;
+    std::vector<double>                   pressures;      ///< [Pa], one per Pressure role
+    std::vector<double>                   inflow_rates;   ///< volume rates, one per Inflow role
+    std::vector<double>                   inflow_mass_rates; ///< or mass rates, one per Inflow role
+    std::vector<double>                   inflow_speeds;  ///< [m/s], one per Uniform inflow role
+    std::vector<double>                   wall_velocity{0., 0.}; ///< [m/s] of the moving walls
+    double                                rotation_rate = 0.;    ///< [rad/s] of the moving walls
+
+    void bind(SectionKeys &keys);
+  };
+
+  /// subsection Nonlinear solver.
+  struct NonlinearSolverSection
+  {
+    double       relative_tolerance = 1e-8;
+    double       absolute_tolerance = 1e-12;
+    unsigned int max_iterations     = 60;
+    double       picard_until       = 1e-2; ///< Picard while residual / initial residual is above this
+    unsigned int max_picard_steps   = 10;
+    bool         continuation       = true;
+    /// Levels solved first on coarser meshes; nullopt: chosen from the size of the problem.
+    std::optional<unsigned int> mesh_sequencing;
+
+    void bind(SectionKeys &keys);
+  };
+
+  enum class LinearSolverType
+  {
+    automatic, ///< direct up to `direct_limit` unknowns, else iterative
+    direct,
+    iterative
+  };
+
+  /// subsection Linear solver.
+  struct LinearSolverSection
+  {
+    LinearSolverType type         = LinearSolverType::automatic;
+    unsigned int     direct_limit = 250000; ///< unknowns up to which automatic chooses direct
+
+    void bind(SectionKeys &keys);
+  };
+
+  /// subsection Output.
+  struct OutputSection
+  {
+    std::string folder;               ///< "" : out/<case name>
+    bool        write_fields   = true;
+    bool        write_pictures = true;
+
+    void bind(SectionKeys &keys);
+  };
+} // namespace lentus::input
