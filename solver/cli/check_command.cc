@@ -77,8 +77,8 @@ namespace lentus::cli
     for (const auto &[key, value] : fluid.parameters)
       std::cout << "; " << key << " = " << rheology::format_value(value);
     std::cout << "\n  temperature shift: " << fluid.shift_name;
-    if (!std::isnan(fluid.temperature))
-      std::cout << " at T = " << rheology::format_value(fluid.temperature)
+    if (fluid.temperature)
+      std::cout << " at T = " << rheology::format_value(*fluid.temperature)
                 << " K (a_T = " << rheology::format_value(fluid.shift_factor) << ")";
     std::cout << '\n';
     if (flow)

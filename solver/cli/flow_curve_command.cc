@@ -88,8 +88,8 @@ options:
         const std::string image_file = report::temporary_name_for(plot->second) + ".png";
         report::write_file_atomically(data_file, csv.str());
         std::string title = "Flow curve: " + fluid.law_name;
-        if (!std::isnan(fluid.temperature))
-          title += ", T = " + rheology::format_value(fluid.temperature) + " K";
+        if (fluid.temperature)
+          title += ", T = " + rheology::format_value(*fluid.temperature) + " K";
         const int status = report::run_script("plot_flow_curve.py", {data_file, image_file, title});
         std::error_code ignored;
         std::filesystem::remove(data_file, ignored);

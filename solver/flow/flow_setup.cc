@@ -32,7 +32,7 @@ namespace lentus::flow
     , kind(flow_case.model.formulation)
     , n_velocity(n_velocity_components(flow_case.model.formulation))
     , law(flow_case.fluid.law)
-    , density(flow_case.model.inertia || flow_case.model.gravity[0] != 0. || flow_case.model.gravity[1] != 0. ? flow_case.fluid.density :
+    , density(flow_case.model.inertia || flow_case.model.gravity[0] != 0. || flow_case.model.gravity[1] != 0. ? flow_case.fluid.density.value() :
                                                                                              0.)
   {}
 

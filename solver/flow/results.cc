@@ -44,8 +44,8 @@ namespace lentus::flow
       if (!flow.geometry->straight_sections().empty() && numbers.find("pressure drop inlet to outlet"))
         cautions.emplace_back(
           "The die pressure drop covers only the modelled barrel and die, at one uniform temperature (" +
-          (std::isnan(flow.fluid.temperature) ? std::string("the fluid's reference temperature") :
-                                                rheology::format_short(flow.fluid.temperature) + " K") +
+          (!flow.fluid.temperature ? std::string("the fluid's reference temperature") :
+                                     rheology::format_short(*flow.fluid.temperature) + " K") +
           "); screens, adapters, viscous heating and the melt's pressure dependence are not included.");
       if (state.physics.law->yield_stress() > 0.)
         cautions.emplace_back("Yield-stress fluid regularized after Papanastasiou: unyielded regions and the cavern "

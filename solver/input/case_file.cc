@@ -85,8 +85,10 @@ namespace lentus::input
       throw InputError(file, line, declaration.path,
                        declaration.path + " = (empty): no value; allowed: " + declaration.kind.describe() +
                          (declaration.default_value.empty() ? std::string() :
-                                                              " (or remove the line for the default, " +
-                                                                declaration.default_value + ")"));
+                                                              std::string(file == InputError::command_line_overrides ?
+                                                                            " (or leave out this --set" :
+                                                                            " (or remove the line") +
+                                                                " for the default, " + declaration.default_value + ")"));
     if (const auto problem = declaration.kind.problem(value))
       throw InputError(file, line, declaration.path,
                        declaration.path + " = " + value + ": " + *problem + "; allowed: " +
@@ -322,11 +324,6 @@ namespace lentus::input
     if (!number)
       fail(path, "not a real number", schema->find(path)->kind.describe());
     return *number;
-  }
-
-  double CaseFile::get_real_or_nan(const std::string &path) const
-  {
-    return get(path).empty() ? std::numeric_limits<double>::quiet_NaN() : get_real(path);
   }
 
   const KeyDeclaration &CaseFile::declaration(const std::string &path) const

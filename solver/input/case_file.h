@@ -71,9 +71,6 @@ namespace lentus::input
     /// The value as a real number; throws InputError if it is not set.
     double get_real(const std::string &path) const;
 
-    /// The value as a real number, NaN if it is not set.
-    double get_real_or_nan(const std::string &path) const;
-
     /// The schema's declaration of a key (its kind, default and meaning).
     const KeyDeclaration &declaration(const std::string &path) const;
 

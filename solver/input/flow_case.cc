@@ -163,13 +163,13 @@ namespace lentus::input
         file.fail(mass_key,
                   "Inflow rates is set too (line " + std::to_string(file.line_of(conditions + "Inflow rates")) + ")",
                   "either Inflow rates [m^3/s] or Inflow mass rates [kg/s], one value per role under Inflow");
-      if (by_mass && std::isnan(flow.fluid.density))
+      if (by_mass && !flow.fluid.density)
         file.fail(mass_key, "a mass rate needs the fluid's density, and Rheology/Density is not set",
                   "Rheology/Density [kg/m^3] set, or volume rates under Inflow rates instead");
       std::vector<double> inflow_rates = by_mass ? keys.inflow_mass_rates : keys.inflow_rates;
       if (by_mass)
         for (double &rate : inflow_rates)
-          rate *= 1. / flow.fluid.density;
+          rate *= 1. / *flow.fluid.density;
 
       /// Hands out the values of a list key one role at a time; `finish` checks that none is left.
       struct Values
@@ -256,7 +256,7 @@ namespace lentus::input
     flow.output        = read_section<OutputSection>(file, "Output");
 
     const FlowSection &model = flow.model;
-    if ((model.inertia || model.gravity[0] != 0. || model.gravity[1] != 0.) && std::isnan(flow.fluid.density))
+    if ((model.inertia || model.gravity[0] != 0. || model.gravity[1] != 0.) && !flow.fluid.density)
       file.fail("Rheology/Density", "missing; inertia and gravity need it", "a density > 0 kg/m^3");
 
     assign_conditions(file, flow);

@@ -2,6 +2,7 @@
 
 #include "rheology/law_registry.h"
 #include "solver/errors.h"
+#include "solver/input/section_keys.h"
 
 #include <cmath>
 
@@ -10,6 +11,31 @@ namespace lentus::input
   namespace
   {
     const std::string section = "Rheology";
+
+    /// The fluid's keys outside the law tables (which the registry declares itself).
+    struct FluidScalars
+    {
+      std::optional<double> density;
+
+      void bind(SectionKeys &keys)
+      {
+        keys.optional_real("Density", density, rheology::Range::above(0.),
+                           "rho [kg/m^3]: mass density of the fluid; needed with inertia, gravity or a mass flow rate.");
+      }
+    };
+
+    /// The temperature of the fluid; its own section, so that a fluid-only file may set it.
+    struct FluidTemperature
+    {
+      std::optional<double> temperature;
+
+      void bind(SectionKeys &keys)
+      {
+        keys.optional_real("Temperature", temperature, rheology::Range::above(0.),
+                           "T [K]: temperature of the fluid; needed when a temperature shift is selected.");
+      }
+    };
+    const std::string temperature_section = "Operating point";
 
     std::string documentation_of(const rheology::ParameterInfo &parameter)
     {
@@ -56,10 +82,8 @@ namespace lentus::input
         schema.declare(section + "/" + shift.name + "/" + parameter.key, "", ValueKind::real(parameter.range),
                        documentation_of(parameter));
 
-    schema.declare(section + "/Density", "", ValueKind::real(rheology::Range::above(0.)),
-                   "rho [kg/m^3]: mass density of the fluid; needed with inertia or a mass flow rate.");
-    schema.declare("Operating point/Temperature", "", ValueKind::real(rheology::Range::above(0.)),
-                   "T [K]: temperature of the fluid; needed when a temperature shift is selected.");
+    declare_section<FluidScalars>(schema, section);
+    declare_section<FluidTemperature>(schema, temperature_section);
   }
 
   Fluid read_fluid(const CaseFile &file, const std::optional<double> temperature)
@@ -103,17 +127,17 @@ namespace lentus::input
             file.fail(shift_section + "/" + error.key, error.problem, error.allowed);
           }
 
-    const std::string temperature_key = "Operating point/Temperature";
-    fluid.temperature  = temperature ? *temperature : file.get_real_or_nan(temperature_key);
+    const std::string temperature_key = temperature_section + "/Temperature";
+    fluid.temperature  = temperature ? temperature : read_section<FluidTemperature>(file, temperature_section).temperature;
     fluid.shift_factor = 1.;
     if (fluid.shift.kind() != rheology::TemperatureShift::Kind::none)
       {
-        if (std::isnan(fluid.temperature))
+        if (!fluid.temperature)
           file.fail(temperature_key, "missing; the temperature shift " + fluid.shift_name + " needs it",
                     "a temperature > 0 K");
         try
           {
-            fluid.shift_factor = fluid.shift.factor(fluid.temperature);
+            fluid.shift_factor = fluid.shift.factor(*fluid.temperature);
             fluid.law          = rheology::shifted(fluid.reference_law, fluid.shift_factor);
           }
         catch (const rheology::InvalidParameter &error)
@@ -127,7 +151,7 @@ namespace lentus::input
     else
       fluid.law = fluid.reference_law;
 
-    fluid.density = file.get_real_or_nan(section + "/Density");
+    fluid.density = read_section<FluidScalars>(file, section).density;
     return fluid;
   }
 } // namespace lentus::input

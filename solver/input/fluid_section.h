@@ -25,9 +25,9 @@ namespace lentus::input
     std::shared_ptr<const rheology::ViscosityLaw> reference_law;  ///< at the reference temperature
     std::string                                   shift_name;
     rheology::TemperatureShift                    shift;
-    double                                        temperature;    ///< [K], NaN if not set
+    std::optional<double>                         temperature;    ///< [K], if set
     double                                        shift_factor;   ///< a_T at `temperature` (1 without shift)
-    double                                        density;        ///< [kg/m^3], NaN if not set
+    std::optional<double>                         density;        ///< [kg/m^3], if set
     std::shared_ptr<const rheology::ViscosityLaw> law;            ///< at `temperature`
   };
 

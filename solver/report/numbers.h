@@ -8,6 +8,7 @@
 #include "solver/report/design_number.h"
 #include "solver/report/integrals.h"
 
+#include <optional>
 #include <vector>
 
 namespace lentus::report
@@ -27,7 +28,7 @@ namespace lentus::report
   {
     double rotation_speed = 0.;        ///< N [rev/s]
     double diameter = 0.;              ///< D [m]; 0 when the shape has none
-    double density = 0.;               ///< [kg/m^3], NaN when not given
+    std::optional<double> density;     ///< [kg/m^3], if given
     double metzner_otto_constant = 0.; ///< k_s [-]
   };
 

@@ -13,7 +13,7 @@ namespace lentus::report
     const std::string per          = formulation.per_depth();
     const double      N            = impeller.rotation_speed;
     const double      D            = impeller.diameter;
-    const double      rho          = impeller.density;
+    const std::optional<double> density = impeller.density;
     const double      tau_y        = law.yield_stress();
 
     // Torque and power the impeller roles put into the fluid.
@@ -32,8 +32,9 @@ namespace lentus::report
         const double apparent = law.evaluate(rate).value;
         numbers.add("Metzner-Otto shear rate", "gamma_MO", rate, "1/s", Group::vessel);
         numbers.add("apparent viscosity at the Metzner-Otto shear rate", "eta_MO", apparent, "Pa s", Group::vessel);
-        if (!std::isnan(rho))
+        if (density)
           {
+            const double rho = *density;
             // Po = P / (rho N^3 D^5); per metre of depth when planar: P' / (rho N^3 D^4).
             numbers.add("power number", "Po", power / (rho * N * N * N * std::pow(D, axisymmetric ? 5 : 4)), "-",
                         Group::vessel, true);

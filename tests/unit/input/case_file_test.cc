@@ -50,7 +50,9 @@ TEST(CaseFile, ReadsCommentsContinuationsAndDefaults)
   EXPECT_EQ(file.get("Rheology/Carreau-Yasuda/Yasuda exponent"), "2"); // declared default
   EXPECT_FALSE(file.is_set("Rheology/Carreau-Yasuda/Yasuda exponent"));
   EXPECT_EQ(file.get("Rheology/Temperature shift"), "none");
-  EXPECT_TRUE(std::isnan(file.get_real_or_nan("Rheology/Density")));
+  EXPECT_FALSE(file.is_set("Rheology/Density"));
+  EXPECT_FALSE(read_fluid(file).density);     // not set: no magic value
+  EXPECT_FALSE(read_fluid(file).temperature);
   // The completed case lists every declared key.
   EXPECT_THAT(file.complete_text(), HasSubstr("Herschel-Bulkley"));
 }

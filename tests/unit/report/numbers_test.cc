@@ -97,4 +97,12 @@ TEST(VesselNumbers, PowerNumberTimesReynoldsNumberOfCreepingFlow)
   EXPECT_NEAR(Po * Re, 2. * M_PI * T / (mu * N * std::pow(D, 3)), 1e-9);
   EXPECT_DOUBLE_EQ(numbers.value("dead-zone volume fraction"), 0.25);
   EXPECT_EQ(numbers.find("cavern radius"), nullptr); // no yield stress, no cavern
+
+  // Without a density there is no power number nor Reynolds number, and no division by zero.
+  DesignNumbers without_density;
+  add_vessel_numbers(Formulation(FormulationKind::swirl), *law, {N, D, std::nullopt, 11.5}, flow, vessel,
+                     without_density);
+  EXPECT_EQ(without_density.find("power number"), nullptr);
+  EXPECT_EQ(without_density.find("Metzner-Otto Reynolds number"), nullptr);
+  EXPECT_NEAR(without_density.value("impeller power"), 2. * M_PI * N * T, 1e-14);
 }

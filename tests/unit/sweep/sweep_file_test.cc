@@ -148,6 +148,9 @@ namespace
                 HasSubstr("test.sweep:3: " + n_key + ": already set by the sweep in test.sweep:2"));
     EXPECT_THAT(error_of("combine = diagonal\nvary " + n_key + " = 0.4\n"),
                 HasSubstr("test.sweep:2: combine = diagonal: unknown combination; allowed: grid"));
+    // An empty value is bad input here as in a case file (it would stand for the default).
+    EXPECT_THAT(error_of("vary " + n_key + " = 0.4\nfix Geometry/Refinement =\n"),
+                HasSubstr("test.sweep:3: Geometry/Refinement = (empty): no value; allowed:"));
     EXPECT_THAT(error_of("vary Output/Folder = a, b\n"), HasSubstr("test.sweep:2: Output/Folder: set by the sweep runner"));
     EXPECT_THAT(error_of("sweep " + n_key + " = 0.4\n"), HasSubstr("test.sweep:2: cannot read 'sweep"));
     EXPECT_THAT(error_of("case a\n  " + n_key + " = 0.4\n"), HasSubstr("test.sweep:2: case a is not closed by 'end'"));
