@@ -21,7 +21,7 @@ namespace lentus::cli
       {
         std::cout << "usage: [mpirun -np P] lentus run CASE [--output FOLDER] [--no-pictures] [--set Section/Key=VALUE ...]\n\n"
                      "Solves the flow in CASE and writes FOLDER (default: Output/Folder, else out/<case name>):\n"
-                     "fields.pvd/.pvtu/.vtu (velocity, pressure, shear rate, viscosity, von Mises stress,\n"
+                     "fields.pvd/.pvtu/.vtu (velocity, pressure, shear rate, viscosity, stress magnitude,\n"
                      "unyielded indicator, partition), summary.json (design numbers with units), log.txt, case.prm,\n"
                      "and PNG pictures with report.html (scripts/draw_case.py, needs python3-matplotlib; off with\n"
                      "--no-pictures or Output/Write pictures = false; a drawing failure is only a warning).\n"

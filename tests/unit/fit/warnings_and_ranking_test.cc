@@ -45,7 +45,9 @@ namespace lentus::rheology::fit
           ASSERT_TRUE(fits[i].fitted) << fits[i].law;
           total += fits[i].akaike_weight;
           if (i > 0)
-            EXPECT_LE(fits[i - 1].aic, fits[i].aic);
+            {
+              EXPECT_LE(fits[i - 1].aic, fits[i].aic);
+            }
         }
       EXPECT_NEAR(total, 1., 1e-12);
       // Analytic: AIC - BIC = k (2 - ln N) for the same fit.
