@@ -5,7 +5,8 @@
 //     "Carreau-Yasuda", "formula", "description",
 //     {{"Zero-shear viscosity", "eta_0", &CarreauYasuda::eta_0, "Pa s", "...", Range::above(0.)}, ...},
 //     &evaluate, &yield_stress, &validate,
-//     {{"Flow index", Softening::Path::linear, 1.}}};   // what continuation may soften
+//     {{"Flow index", Softening::Path::linear, 1.}},     // what continuation may soften
+//     "");                                                // the regularization parameter, if any
 //
 // The parameter table feeds the case-file declaration, `lentus laws` and the
 // rheometer fitter, so nothing is written twice.
@@ -59,6 +60,9 @@ namespace lentus::rheology
     std::function<std::unique_ptr<ViscosityLaw>(const std::vector<double> &)> create;
     /// What continuation may soften, in the order to try; the first that applies is taken.
     std::vector<Softening> softenings;
+    /// The parameter of a regularization whose error the run estimates by solving again at a larger
+    /// value (the Papanastasiou exponent M); "" when the law is not regularized.
+    std::string regularization;
 
     /// The continuation path for a fluid with these complete parameter values (by key), or
     /// nothing when no softening applies.
@@ -144,13 +148,15 @@ namespace lentus::rheology
                     Evaluate evaluate,
                     YieldStress yield_stress,
                     Validate validate,
-                    std::vector<Softening> softenings = {})
+                    std::vector<Softening> softenings = {},
+                    std::string regularization = "")
     {
       LawInfo info;
       info.name        = name;
       info.formula     = formula;
       info.description = description;
       info.softenings  = std::move(softenings);
+      info.regularization = std::move(regularization);
       for (const Row &row : rows)
         info.parameters.push_back({row.key, row.symbol, row.unit, row.meaning, row.range, row.default_value});
       info.create = [name, rows, evaluate, yield_stress, validate](const std::vector<double> &values)

@@ -57,6 +57,14 @@ namespace lentus::rheology
     return range;
   }
 
+  Range Range::closed(const double lower, const double upper)
+  {
+    Range range;
+    range.lower = lower;
+    range.upper = upper;
+    return range;
+  }
+
   Range Range::any()
   {
     return Range();

@@ -46,6 +46,7 @@ namespace lentus::rheology
     static Range above(double lower);    ///< (lower, inf)
     static Range at_least(double lower); ///< [lower, inf)
     static Range any();                  ///< any finite real
+    static Range closed(double lower, double upper); ///< [lower, upper]
 
     /// The same range, also accepting +infinity.
     Range or_infinite() const;

@@ -38,6 +38,8 @@ namespace lentus::rheology
         "Papanastasiou exponent; larger is closer to the ideal law", Range::above(0.)}},
       &evaluate, &yield_stress, nullptr,
       // Continuation: M from M/1000 up in four steps (the flow of a nearly Newtonian fluid first).
-      {{"Regularization exponent", Softening::Path::geometric, 1e-3, 4, "Yield stress"}}};
+      {{"Regularization exponent", Softening::Path::geometric, 1e-3, 4, "Yield stress"}},
+      // The regularization error: a second solve at a larger M.
+      "Regularization exponent"};
   } // namespace
 } // namespace lentus::rheology

@@ -54,6 +54,8 @@ namespace lentus::rheology
       &evaluate, &yield_stress, &validate,
       // Continuation: M from M/1000 up when there is a yield stress, else the flow index from 1.
       {{"Regularization exponent", Softening::Path::geometric, 1e-3, 4, "Yield stress"},
-       {"Flow index", Softening::Path::linear, 1., 5, ""}}};
+       {"Flow index", Softening::Path::linear, 1., 5, ""}},
+      // The regularization error: a second solve at a larger M.
+      "Regularization exponent"};
   } // namespace
 } // namespace lentus::rheology

@@ -107,7 +107,6 @@ namespace lentus::flow
     gravity[0] = physics.flow.model.gravity[0];
     gravity[2] = physics.flow.model.gravity[1];
 
-    const AffineConstraints<double> no_constraints;
     if (with_matrix)
       {
         system.system_matrix = 0.;
@@ -225,7 +224,9 @@ namespace lentus::flow
 
         if (reactions)
           {
-            no_constraints.distribute_local_to_global(cell_residual, dof_indices, *reactions);
+            // Hanging unknowns hand their share to the unknowns they depend on, so that the reactions
+            // are those of the conforming test functions (the walls' lifts).
+            mesh.hanging_constraints.distribute_local_to_global(cell_residual, dof_indices, *reactions);
             continue;
           }
         // The system is J d = -R.

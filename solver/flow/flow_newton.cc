@@ -28,19 +28,6 @@ namespace lentus::flow
       return buffer;
     }
 
-    /// The fluid's law with one parameter replaced (continuation), at the case's temperature.
-    std::shared_ptr<const rheology::ViscosityLaw> law_with(const input::Fluid &fluid,
-                                                           const std::string &key,
-                                                           const double value)
-    {
-      rheology::ParameterValues parameters = fluid.parameters;
-      parameters[key]                      = value;
-      std::shared_ptr<const rheology::ViscosityLaw> law = rheology::registry().create(fluid.law_name, parameters);
-      if (fluid.shift_factor != 1.)
-        law = rheology::shifted(law, fluid.shift_factor);
-      return law;
-    }
-
     /// One Newton/Picard solve from state.solution; true if converged. With `give_up_when_stalled`,
     /// it stops once Newton crawls (the residual fell by less than 10% over the last `stall_limit`
     /// Newton steps), so that continuation can take over early.
@@ -180,13 +167,50 @@ namespace lentus::flow
       return direct ? "direct (MUMPS)" : "FGMRES, block-triangular preconditioner";
     }
 
-    /// Starts the history's record of the current mesh.
-    void record_mesh(FlowState &state, SolveOutcome &outcome)
-    {
-      outcome.history.begin_mesh(state.mesh.triangulation.n_global_active_cells(), state.mesh.dof_handler.n_dofs(),
-                                 linear_solver_name(use_direct(state)));
-    }
   } // namespace
+
+  std::shared_ptr<const rheology::ViscosityLaw> law_with(const input::Fluid &fluid, const std::string &key,
+                                                         const double value)
+  {
+    rheology::ParameterValues parameters = fluid.parameters;
+    parameters[key]                      = value;
+    std::shared_ptr<const rheology::ViscosityLaw> law = rheology::registry().create(fluid.law_name, parameters);
+    if (fluid.shift_factor != 1.)
+      law = rheology::shifted(law, fluid.shift_factor);
+    return law;
+  }
+
+  void record_mesh(FlowState &state, SolveOutcome &outcome, const std::string &refinement)
+  {
+    outcome.history.begin_mesh(state.mesh.triangulation.n_global_active_cells(), state.mesh.dof_handler.n_dofs(),
+                               linear_solver_name(use_direct(state)), refinement);
+  }
+
+  bool solve_from_current(FlowState &state, const Physics &physics, SolveOutcome &outcome, const std::string &label,
+                          const bool newton_first)
+  {
+    const bool direct = use_direct(state);
+    state.log.line("Nonlinear solve (" + label + "), linear solver " + linear_solver_name(direct));
+    // The tolerance stays relative to the residual of the state at rest, as on a cold start.
+    const Vector start = state.solution;
+    initial_solution(state);
+    const double at_rest = assemble(physics, state.mesh, state.solution, Linearization::none, state.system);
+    state.solution       = start;
+    std::string why;
+    if (newton_first)
+      {
+        // Next to the solution already: Newton at once; if it stalls, again with the Picard start.
+        if (iterate(state, physics, direct, outcome, label, why, true, 0u, at_rest))
+          return true;
+        state.log.line("  Newton from the current solution failed (" + why + "); again with Picard steps first");
+        state.solution = start;
+      }
+    if (iterate(state, physics, direct, outcome, label + (newton_first ? " (retry with Picard steps)" : ""), why, false,
+                ~0u, at_rest))
+      return true;
+    outcome.reason = why;
+    return false;
+  }
 
   void solve_nonlinear(FlowState &state, SolveOutcome &outcome)
   {
@@ -286,18 +310,15 @@ namespace lentus::flow
     /// stalls), as the yield surfaces move when the mesh is refined.
     bool solve_from_interpolated(FlowState &state, SolveOutcome &outcome)
     {
-      const bool direct = use_direct(state);
-      state.log.line("Nonlinear solve from the coarser mesh's solution, linear solver " + linear_solver_name(direct));
-      // The tolerance stays relative to the residual of the state at rest, as on a cold start.
-      const Vector start = state.solution;
-      initial_solution(state);
-      const double at_rest = assemble(state.physics, state.mesh, state.solution, Linearization::none, state.system);
-      state.solution       = start;
-      std::string why;
-      if (iterate(state, state.physics, direct, outcome, "from the coarser mesh", why, false, ~0u, at_rest))
-        return true;
-      outcome.reason = why;
-      return false;
+      return solve_from_current(state, state.physics, outcome, "from the coarser mesh");
+    }
+
+    /// The design numbers of a converged mesh, for the mesh error of every number.
+    void record_numbers(FlowState &state, SolveOutcome &outcome)
+    {
+      if (outcome.converged)
+        outcome.mesh_numbers.push_back({state.mesh.triangulation.n_global_active_cells(),
+                                        state.mesh.dof_handler.n_dofs(), current_design_numbers(state)});
     }
   } // namespace
 
@@ -320,23 +341,27 @@ namespace lentus::flow
   SolveOutcome solve_with_mesh_sequencing(FlowState &state)
   {
     const input::FlowCase &flow = state.physics.flow;
+    const unsigned int     refinement = flow.geometry_keys.refinement;
     const bool   automatic = !flow.nonlinear.mesh_sequencing;
-    unsigned int levels    = automatic ? std::min(2u, flow.geometry_keys.refinement) : *flow.nonlinear.mesh_sequencing;
-    create_mesh(state, flow.geometry_keys.refinement - levels);
+    unsigned int levels    = automatic ? std::min(2u, refinement) : *flow.nonlinear.mesh_sequencing;
+    create_mesh(state, refinement - levels);
+    // Sequencing's own choice, then at least the coarser meshes the mesh error needs.
+    unsigned int chosen = levels;
     if (automatic && levels > 0)
       {
         state.mesh.dof_handler.distribute_dofs(state.mesh.fe); // to count the unknowns
-        const unsigned int chosen = automatic_coarser_levels(
-          static_cast<double>(state.mesh.dof_handler.n_dofs()) * std::pow(4., levels), flow.geometry_keys.refinement);
-        if (chosen < levels)
-          state.mesh.triangulation.refine_global(levels - chosen);
-        else if (chosen > levels)
-          create_mesh(state, flow.geometry_keys.refinement - chosen);
-        levels = chosen;
+        chosen = automatic_coarser_levels(static_cast<double>(state.mesh.dof_handler.n_dofs()) * std::pow(4., levels),
+                                          refinement);
       }
+    chosen = std::max(chosen, std::min(flow.accuracy.coarser_meshes, refinement));
+    if (chosen < levels)
+      state.mesh.triangulation.refine_global(levels - chosen);
+    else if (chosen > levels)
+      create_mesh(state, refinement - chosen);
+    levels = chosen;
     setup_dofs(state);
     SolveOutcome outcome;
-    record_mesh(state, outcome);
+    record_mesh(state, outcome, levels > 0 ? "coarser mesh" : "case mesh");
     log_mesh(state, levels > 0 ? "Mesh sequencing over " + std::to_string(levels + 1) + " meshes; first " : "");
     const auto attempt = [&](const auto &solve) {
       try
@@ -350,11 +375,14 @@ namespace lentus::flow
         }
     };
     attempt([&] { solve_nonlinear(state, outcome); });
+    record_numbers(state, outcome);
     for (unsigned int remaining = levels; remaining > 0; --remaining)
       {
-        const bool follow = outcome.converged;
+        const bool  follow = outcome.converged;
+        Timer       timer;
         refine_and_transfer(state);
-        record_mesh(state, outcome);
+        record_mesh(state, outcome, remaining > 1 ? "coarser mesh" : "case mesh");
+        outcome.history.add_mesh_seconds(timer.wall_time());
         log_mesh(state, remaining > 1 ? "Finer " : "Final ");
         if (follow)
           attempt([&] { outcome.converged = solve_from_interpolated(state, outcome); });
@@ -364,6 +392,7 @@ namespace lentus::flow
             state.log.line("  mesh sequencing did not converge (" + outcome.reason + "); solving from rest");
             attempt([&] { solve_nonlinear(state, outcome); });
           }
+        record_numbers(state, outcome);
       }
     return outcome;
   }

@@ -17,7 +17,8 @@ namespace lentus::flow
     const dealii::Timer timer;
     report::CaseFolder  folder(flow.output_folder, "summary.json", "Output/Folder", communicator); // refused early
     log_start(*state);
-    const SolveOutcome outcome = solve_with_mesh_sequencing(*state); // builds the meshes, solves on each
+    SolveOutcome outcome = solve_with_mesh_sequencing(*state); // builds the meshes, solves on each
+    improve_accuracy(*state, outcome, timer.wall_time());       // adaptive cycles, regularization check
     make_pressure_mean_free(*state);
     report::Summary summary          = summarize(*state, outcome);
     summary.resources.wall_seconds   = timer.wall_time();

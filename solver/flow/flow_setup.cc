@@ -279,10 +279,15 @@ namespace lentus::flow
 
   void refine_and_transfer(FlowState &state)
   {
-    parallel::distributed::SolutionTransfer<2, Vector> transfer(state.mesh.dof_handler);
     for (const auto &cell : state.mesh.triangulation.active_cell_iterators())
       if (cell->is_locally_owned())
         cell->set_refine_flag();
+    transfer_to_flagged_mesh(state);
+  }
+
+  void transfer_to_flagged_mesh(FlowState &state)
+  {
+    parallel::distributed::SolutionTransfer<2, Vector> transfer(state.mesh.dof_handler);
     state.mesh.triangulation.prepare_coarsening_and_refinement();
     transfer.prepare_for_coarsening_and_refinement(state.solution);
     state.mesh.triangulation.execute_coarsening_and_refinement();
@@ -412,6 +417,10 @@ namespace lentus::flow
       }
     state.mesh.nonzero_constraints.close();
     state.mesh.zero_constraints.close();
+    state.mesh.hanging_constraints.clear();
+    state.mesh.hanging_constraints.reinit(state.mesh.relevant);
+    DoFTools::make_hanging_node_constraints(state.mesh.dof_handler, state.mesh.hanging_constraints);
+    state.mesh.hanging_constraints.close();
 
     DynamicSparsityPattern pattern(state.mesh.relevant);
     DoFTools::make_sparsity_pattern(state.mesh.dof_handler, pattern, state.mesh.zero_constraints, false);

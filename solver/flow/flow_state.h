@@ -4,6 +4,7 @@
 
 #include "rheology/viscosity_law.h"
 #include "solver/input/flow_case.h"
+#include "solver/report/accuracy.h"
 #include "solver/report/solve_history.h"
 
 #include <deal.II/base/conditional_ostream.h>
@@ -16,6 +17,7 @@
 #include <deal.II/lac/petsc_vector.h>
 
 #include <memory>
+#include <optional>
 #include <sstream>
 #include <string>
 #include <vector>
@@ -31,6 +33,14 @@ namespace lentus::flow
     bool                 converged = false;
     std::string          reason; ///< why not converged
     report::SolveHistory history;
+    /// The design numbers of every mesh solved to convergence, coarse to fine (for the mesh error).
+    std::vector<report::MeshNumbers> mesh_numbers;
+    /// The design numbers of the regularization check (at regularization_factor x M), if made.
+    std::optional<report::DesignNumbers> at_larger_m;
+    double                               regularization_factor = 0.;
+    std::string regularization_note; ///< why there is no regularization check, when there is none
+    /// How the adaptive cycles ended, in words ("after 3 of at most 5 adaptive cycles", "budget spent ...").
+    std::string target_status;
   };
 
   /// Messages go to standard output (rank 0) and into the case's log.
@@ -71,6 +81,7 @@ namespace lentus::flow
     dealii::DoFHandler<2>                           dof_handler;
     dealii::IndexSet                                owned, relevant;
     dealii::AffineConstraints<double>               nonzero_constraints, zero_constraints;
+    dealii::AffineConstraints<double>               hanging_constraints; ///< only those of hanging nodes
     bool                                            pressure_pinned = false;
   };
 
@@ -82,9 +93,21 @@ namespace lentus::flow
     Vector residual;      ///< -R, owned
   };
 
+  /// A solved flow as the design numbers see it: the physics it was solved for, the mesh and the
+  /// solution (ghosted). A FlowState converts to one; the regularization check makes one with the
+  /// stiffer law it solved for.
+  struct SolvedFlow
+  {
+    const Physics        &physics;
+    const Discretization &mesh;
+    const Vector         &solution;
+  };
+
   /// One flow solve: physics (const), discretization, linear system, solution and log.
   struct FlowState
   {
+    operator SolvedFlow() const { return {physics, mesh, solution}; }
+
     FlowState(const input::FlowCase &flow_case, MPI_Comm communicator);
 
     const Physics  physics;
@@ -102,6 +125,8 @@ namespace lentus::flow
   /// Refines every cell once and carries state.solution over to the finer mesh (interpolation;
   /// Dirichlet values and the pinned pressure are set anew), with setup_dofs().
   void refine_and_transfer(FlowState &state);
+  /// The same after the refine and coarsen flags of the triangulation's cells were set.
+  void transfer_to_flagged_mesh(FlowState &state);
   /// Velocity node by node, then pressure, within each rank's range (called by setup_dofs).
   void renumber_node_wise(FlowState &state);
   /// The initial iterate: zero with the Dirichlet values.
@@ -134,10 +159,39 @@ namespace lentus::flow
                             Vector &update, bool direct, double relative_tolerance = 1e-10);
 
   // flow_newton.cc
+  /// The fluid's law with one parameter replaced (continuation, regularization check), at the case's
+  /// temperature.
+  std::shared_ptr<const rheology::ViscosityLaw> law_with(const input::Fluid &fluid, const std::string &key,
+                                                         double value);
   /// Newton with line search, Picard start and continuation on the current mesh, from rest.
   /// Appends to `outcome`; leaves the last iterate in state.solution.
   void solve_nonlinear(FlowState &state, SolveOutcome &outcome);
   /// The whole solve: creates the mesh (and its coarser ones under mesh sequencing), solves on
   /// each, and leaves the state on the mesh of Geometry/Refinement.
   SolveOutcome solve_with_mesh_sequencing(FlowState &state);
+  /// Iterations from state.solution for `physics` on the current mesh (no continuation), the
+  /// tolerance relative to the residual at rest; true if converged. `label` names the solve in the
+  /// history. `newton_first`: Newton at once (for a start next to the solution), Picard steps first
+  /// only if it stalls.
+  bool solve_from_current(FlowState &state, const Physics &physics, SolveOutcome &outcome, const std::string &label,
+                          bool newton_first = false);
+  /// Starts the history's record of the current mesh (`refinement`: how it was made).
+  void record_mesh(FlowState &state, SolveOutcome &outcome, const std::string &refinement);
+
+  // results.cc
+  /// The design numbers of the current solution, with the pressure made mean-free on a copy (the
+  /// state is left as it was). Collective.
+  report::DesignNumbers current_design_numbers(FlowState &state);
+  /// The same for a solution of other physics on the state's mesh (the regularization check).
+  report::DesignNumbers current_design_numbers(FlowState &state, const Physics &physics);
+
+  // flow_accuracy.cc
+  /// Adaptive cycles after the solve on the case's mesh (Accuracy/Adaptive cycles, until a target
+  /// is met or a budget spent), then the regularization check. `seconds_so_far`: the run's wall time
+  /// before it [s], for Accuracy/Maximum wall time. Appends to `outcome`.
+  void improve_accuracy(FlowState &state, SolveOutcome &outcome, double seconds_so_far);
+  /// Whether the error bar of every targeted number (Accuracy/Targeted numbers, else the key numbers)
+  /// is below Accuracy/Target relative error; `worst`: the number with the largest relative error bar,
+  /// in words. Throws InputError for a targeted name the case does not have.
+  bool accuracy_target_met(const FlowState &state, const report::DesignNumbers &numbers, std::string &worst);
 } // namespace lentus::flow

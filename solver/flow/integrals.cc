@@ -27,7 +27,7 @@ namespace lentus::flow
     }
 
     /// Volume, dissipation, unyielded region, maximum speed.
-    report::CellIntegrals cell_integrals(const FlowState &state)
+    report::CellIntegrals cell_integrals(const SolvedFlow &state)
     {
       const QGauss<2> quadrature(state.mesh.fe.degree + 1);
       FEValues<2>     fe_values(state.mesh.fe, quadrature,
@@ -74,7 +74,7 @@ namespace lentus::flow
     }
 
     /// Flux, weighted pressure and weighted length of every role.
-    void add_face_integrals(const FlowState &state, std::map<std::string, report::RoleIntegrals> &roles)
+    void add_face_integrals(const SolvedFlow &state, std::map<std::string, report::RoleIntegrals> &roles)
     {
       const unsigned int pressure_component = state.physics.n_velocity;
       const QGauss<1>    face_quadrature(state.mesh.fe.degree + 1);
@@ -117,7 +117,7 @@ namespace lentus::flow
 
     /// Torque, power and forces of each role from the unconstrained residual. Each boundary
     /// unknown belongs to the first role that constrains it.
-    void add_reactions(const FlowState &state, std::map<std::string, report::RoleIntegrals> &roles)
+    void add_reactions(const SolvedFlow &state, std::map<std::string, report::RoleIntegrals> &roles)
     {
       const Formulation formulation(state.physics.kind);
       Vector            reactions;
@@ -212,7 +212,7 @@ namespace lentus::flow
     state.solution = owned;
   }
 
-  report::FlowIntegrals flow_integrals(const FlowState &state)
+  report::FlowIntegrals flow_integrals(const SolvedFlow &state)
   {
     report::FlowIntegrals integrals;
     for (const input::BoundaryCondition &bc : state.physics.flow.conditions)

@@ -13,5 +13,5 @@ namespace lentus::flow
 
   /// Cell integrals, role integrals and reactions (torque, power, forces of each role from the
   /// unconstrained residual: consistent with the discrete equations). Collective.
-  report::FlowIntegrals flow_integrals(const FlowState &state);
+  report::FlowIntegrals flow_integrals(const SolvedFlow &state);
 } // namespace lentus::flow

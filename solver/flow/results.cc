@@ -54,28 +54,60 @@ namespace lentus::flow
     }
   } // namespace
 
+  namespace
+  {
+    /// The design numbers of the state's solution (pressure already mean-free).
+    report::DesignNumbers design_numbers(const SolvedFlow &state)
+    {
+      const input::FlowCase      &flow = state.physics.flow;
+      const Formulation           formulation(state.physics.kind);
+      const report::FlowIntegrals integrals = flow_integrals(state);
+
+      report::DesignNumbers numbers;
+      report::add_role_numbers(formulation, integrals, numbers);
+      report::add_die_numbers(formulation, *state.physics.law, flow.geometry->straight_sections(), integrals, numbers);
+      if (has_impeller(state))
+        {
+          report::Impeller impeller;
+          impeller.rotation_speed        = flow.operating.rotation_speed;
+          impeller.diameter              = flow.geometry->impeller_diameter();
+          impeller.density               = flow.fluid.density;
+          impeller.metzner_otto_constant = flow.vessel.metzner_otto_constant;
+          report::add_vessel_numbers(formulation, *state.physics.law, impeller, integrals, vessel_integrals(state),
+                                     numbers);
+        }
+      report::add_energy_and_region_numbers(formulation, state.physics.law->yield_stress(), integrals, numbers);
+      mark_default_key_numbers(numbers);
+      return numbers;
+    }
+  } // namespace
+
+  report::DesignNumbers current_design_numbers(FlowState &state, const Physics &physics)
+  {
+    const Vector solved = state.solution;
+    make_pressure_mean_free(state);
+    report::DesignNumbers numbers = design_numbers(SolvedFlow{physics, state.mesh, state.solution});
+    state.solution                = solved;
+    return numbers;
+  }
+
+  report::DesignNumbers current_design_numbers(FlowState &state)
+  {
+    return current_design_numbers(state, state.physics);
+  }
+
   report::Summary summarize(const FlowState &state, const SolveOutcome &outcome)
   {
-    const input::FlowCase      &flow = state.physics.flow;
-    const Formulation           formulation(state.physics.kind);
-    const report::FlowIntegrals integrals = flow_integrals(state);
-
-    report::Summary summary;
-    report::DesignNumbers &numbers = summary.numbers;
-    report::add_role_numbers(formulation, integrals, numbers);
-    report::add_die_numbers(formulation, *state.physics.law, flow.geometry->straight_sections(), integrals, numbers);
+    const input::FlowCase &flow = state.physics.flow;
+    report::Summary        summary;
+    summary.numbers = design_numbers(state);
     if (has_impeller(state))
-      {
-        report::Impeller impeller;
-        impeller.rotation_speed        = flow.operating.rotation_speed;
-        impeller.diameter              = flow.geometry->impeller_diameter();
-        impeller.density               = flow.fluid.density;
-        impeller.metzner_otto_constant = flow.vessel.metzner_otto_constant;
-        report::add_vessel_numbers(formulation, *state.physics.law, impeller, integrals, vessel_integrals(state), numbers);
-        summary.dead_zone_fraction = flow.vessel.dead_zone_fraction;
-      }
-    report::add_energy_and_region_numbers(formulation, state.physics.law->yield_stress(), integrals, numbers);
-    mark_default_key_numbers(numbers);
+      summary.dead_zone_fraction = flow.vessel.dead_zone_fraction;
+    // Error bars only for a converged run, whose final mesh is the last of outcome.mesh_numbers.
+    if (outcome.converged)
+      report::estimate_accuracy(summary.numbers, outcome.mesh_numbers,
+                                outcome.at_larger_m ? &*outcome.at_larger_m : nullptr, outcome.regularization_factor);
+    report::DesignNumbers &numbers = summary.numbers;
 
     summary.case_file           = flow.case_file;
     summary.converged           = outcome.converged;
@@ -87,6 +119,17 @@ namespace lentus::flow
     summary.unknowns            = state.mesh.dof_handler.n_dofs();
     summary.history             = outcome.history;
     summary.case_cautions       = case_cautions(state, numbers);
+    summary.accuracy.target              = flow.accuracy.target_relative_error;
+    if (flow.accuracy.target_relative_error)
+      {
+        std::string worst;
+        summary.accuracy.target_met    = outcome.converged && accuracy_target_met(state, numbers, worst);
+        summary.accuracy.target_status = std::string(summary.accuracy.target_met ? "target met " : "target not met ") +
+                                         outcome.target_status + (worst.empty() ? "" : "; largest: " + worst);
+      }
+    summary.accuracy.regularization_note = outcome.regularization_note;
+    summary.accuracy.meshes              = outcome.mesh_numbers;
+    summary.accuracy.regularization_factor = outcome.at_larger_m ? outcome.regularization_factor : 0.;
     const double memory         = peak_memory();
     summary.resources.peak_memory_per_rank  = dealii::Utilities::MPI::max(memory, state.mesh.comm);
     summary.resources.peak_memory_all_ranks = dealii::Utilities::MPI::sum(memory, state.mesh.comm);

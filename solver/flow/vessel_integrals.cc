@@ -18,14 +18,14 @@ namespace lentus::flow
 {
   using namespace dealii;
 
-  bool has_impeller(const FlowState &state)
+  bool has_impeller(const SolvedFlow &state)
   {
     return std::any_of(state.physics.flow.conditions.begin(), state.physics.flow.conditions.end(), [](const auto &bc) {
       return bc.type == input::BoundaryCondition::Type::impeller;
     });
   }
 
-  Tensor<1, 3> fixed_frame_velocity(const FlowState &state, const Point<2> &x, const Tensor<1, 3> &U)
+  Tensor<1, 3> fixed_frame_velocity(const SolvedFlow &state, const Point<2> &x, const Tensor<1, 3> &U)
   {
     Tensor<1, 3> lab = U;
     if (state.physics.flow.model.impeller_frame() && state.physics.kind == FormulationKind::planar)
@@ -42,18 +42,20 @@ namespace lentus::flow
     /// Points per cell side of the grid on which the yield margin |tau| - tau_y is sampled.
     constexpr unsigned int samples = 5;
 
-    /// One cell as rank 0 needs it for the cavern: its four face centres, whether some of it is
+    /// One cell as rank 0 needs it for the cavern: the centres of its four faces' halves where a
+    /// neighbour is finer (hanging nodes), else of the faces themselves twice, whether some of it is
     /// yielded, whether it touches the impeller, the size of its yielded part, and the yield margin
     /// on a samples x samples grid of points (edges included).
-    using CellRecord = std::array<double, 12 + 3 * samples * samples>;
+    using CellRecord = std::array<double, 20 + 3 * samples * samples>;
     enum Slot
     {
-      faces = 0, // 8 coordinates
-      yielded = 8,
+      faces = 0, // 16 coordinates: two points a face
+      yielded = 16,
       touches_impeller,
       yielded_measure, // yielded volume (axisymmetric, per radian) or area (planar)
-      sample_grid = 12 // x, y, margin of each grid point, row by row
+      sample_grid = 20 // x, y, margin of each grid point, row by row
     };
+    constexpr unsigned int face_points = 8;
 
     /// Face centres rounded to a grid much finer than any cell, as keys shared by neighbours.
     std::array<long long, 2> face_key(const double x, const double y, const double scale)
@@ -62,7 +64,7 @@ namespace lentus::flow
     }
   } // namespace
 
-  report::VesselIntegrals vessel_integrals(const FlowState &state)
+  report::VesselIntegrals vessel_integrals(const SolvedFlow &state)
   {
     const input::FlowCase &flow         = state.physics.flow;
     const bool             axisymmetric = is_axisymmetric(state.physics.kind);
@@ -140,9 +142,14 @@ namespace lentus::flow
             }
           for (const auto face_no : cell->face_indices())
             {
-              const Point<2> c                 = cell->face(face_no)->center();
-              record[faces + 2 * face_no]     = c[0];
-              record[faces + 2 * face_no + 1] = c[1];
+              // A finer neighbour's face is a half of this one: its centre is the key they share.
+              const auto face = cell->face(face_no);
+              for (unsigned int half = 0; half < 2; ++half)
+                {
+                  const Point<2> c                           = face->has_children() ? face->child(half)->center() : face->center();
+                  record[faces + 2 * (2 * face_no + half)]     = c[0];
+                  record[faces + 2 * (2 * face_no + half) + 1] = c[1];
+                }
               if (cell->face(face_no)->at_boundary() && impeller_ids.count(cell->face(face_no)->boundary_id()))
                 record[touches_impeller] = 1.;
             }
@@ -215,8 +222,13 @@ namespace lentus::flow
         };
         std::map<std::array<long long, 2>, std::vector<std::size_t>> by_face;
         for (std::size_t i = 0; i < cells.size(); ++i)
-          for (unsigned int f = 0; f < 4; ++f)
-            by_face[face_key(cells[i][faces + 2 * f], cells[i][faces + 2 * f + 1], scale)].push_back(i);
+          {
+            std::set<std::array<long long, 2>> keys; // a face without halves gives its centre twice
+            for (unsigned int f = 0; f < face_points; ++f)
+              keys.insert(face_key(cells[i][faces + 2 * f], cells[i][faces + 2 * f + 1], scale));
+            for (const auto &key : keys)
+              by_face[key].push_back(i);
+          }
         std::vector<bool>        reached(cells.size(), false);
         std::vector<std::size_t> front;
         for (std::size_t i = 0; i < cells.size(); ++i)
@@ -232,7 +244,7 @@ namespace lentus::flow
             extend_by(cells[i]);
             cavern[2] += cells[i][yielded_measure];
             cavern[3] = 1.;
-            for (unsigned int f = 0; f < 4; ++f)
+            for (unsigned int f = 0; f < face_points; ++f)
               for (const std::size_t j :
                    by_face[face_key(cells[i][faces + 2 * f], cells[i][faces + 2 * f + 1], scale)])
                 if (!reached[j] && cells[j][yielded] > 0.)

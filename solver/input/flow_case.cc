@@ -69,6 +69,7 @@ namespace lentus::input
     declare_section<BoundaryConditionsSection>(schema, "Boundary conditions");
     declare_section<NonlinearSolverSection>(schema, "Nonlinear solver");
     declare_section<LinearSolverSection>(schema, "Linear solver");
+    declare_section<AccuracySection>(schema, "Accuracy");
     declare_section<OutputSection>(schema, "Output");
   }
 
@@ -253,6 +254,7 @@ namespace lentus::input
     flow.boundary_keys = read_section<BoundaryConditionsSection>(file, "Boundary conditions");
     flow.nonlinear     = read_section<NonlinearSolverSection>(file, "Nonlinear solver");
     flow.linear        = read_section<LinearSolverSection>(file, "Linear solver");
+    flow.accuracy      = read_section<AccuracySection>(file, "Accuracy");
     flow.output        = read_section<OutputSection>(file, "Output");
 
     const FlowSection &model = flow.model;
@@ -286,6 +288,23 @@ namespace lentus::input
       file.fail("Nonlinear solver/Mesh sequencing",
                 "more coarse levels than the mesh has (Geometry/Refinement = " + std::to_string(refinement) + ")",
                 "automatic, or 0 to " + std::to_string(refinement));
+
+    const AccuracySection &accuracy = flow.accuracy;
+    if (accuracy.target_relative_error && accuracy.adaptive_cycles == 0)
+      file.fail("Accuracy/Target relative error", "set, but Accuracy/Adaptive cycles = 0 leaves no cycle to reach it",
+                "Adaptive cycles > 0, or no target");
+    if ((accuracy.maximum_unknowns || accuracy.maximum_wall_time) && accuracy.adaptive_cycles == 0)
+      file.fail(accuracy.maximum_unknowns ? "Accuracy/Maximum unknowns" : "Accuracy/Maximum wall time",
+                "a budget for adaptive cycles, but Accuracy/Adaptive cycles = 0", "Adaptive cycles > 0, or no budget");
+    if (accuracy.adaptive_cycles > 0 && accuracy.refine_at.empty())
+      file.fail("Accuracy/Refine at", "empty, but Accuracy/Adaptive cycles > 0",
+                "yield surface, velocity jumps or everywhere");
+    if (!accuracy.targeted_numbers.empty() && !accuracy.target_relative_error)
+      file.fail("Accuracy/Targeted numbers", "set, but no Accuracy/Target relative error", "a target, or no names");
+    if (accuracy.coarsened_fraction + accuracy.refined_fraction > 1.)
+      file.fail("Accuracy/Coarsened fraction", "with Refined fraction above 1 in all",
+                "at most 1 - Refined fraction = " + rheology::format_short(1. - accuracy.refined_fraction));
+    flow.targeted_numbers_line = file.line_of("Accuracy/Targeted numbers");
 
     flow.output_folder = flow.output.folder.empty() ? (std::filesystem::path("out") / flow.case_name).string() :
                                                       flow.output.folder;

@@ -37,6 +37,7 @@ namespace lentus::input
     BoundaryConditionsSection         boundary_keys;
     NonlinearSolverSection            nonlinear;
     LinearSolverSection               linear;
+    AccuracySection                   accuracy;
     OutputSection                     output;
 
     // Derived and checked across sections.
@@ -46,6 +47,7 @@ namespace lentus::input
     std::vector<BoundaryCondition>    conditions;   ///< one per role of the geometry
     std::string                       output_folder; ///< Output/Folder, or out/<case name>
     std::string                       complete_text; ///< every key with its value, for the record
+    int targeted_numbers_line = 0; ///< line of Accuracy/Targeted numbers, for a message about an unknown name
   };
 
   /// Reads and validates a flow case; throws InputError with file, line and key.

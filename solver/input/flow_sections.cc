@@ -155,6 +155,48 @@ namespace lentus::input
                  "automatic chooses the direct solver up to this many unknowns.");
   }
 
+  void AccuracySection::bind(SectionKeys &keys)
+  {
+    keys.integer("Coarser meshes", coarser_meshes, 0, 4,
+                 "Solve on at least this many coarser meshes first (each with half the cells' size; as many as "
+                 "Geometry/Refinement allows), so that every design number gets a mesh error from the sequence "
+                 "(2: three meshes, Richardson extrapolation with the observed order; 1: two meshes, a cruder "
+                 "bound; 0: only the meshes Nonlinear solver/Mesh sequencing solves anyway) [-].");
+    keys.integer("Adaptive cycles", adaptive_cycles, 0, 30,
+                 "Refinement cycles after the case's mesh, each refining the cells chosen by Refine at and "
+                 "solving again from the previous solution; with a Target relative error, at most this many [-].");
+    keys.choices<RefineAt>("Refine at", refine_at,
+                           {{"yield surface", RefineAt::yield_surface},
+                            {"velocity jumps", RefineAt::velocity_jumps},
+                            {"everywhere", RefineAt::everywhere}},
+                           "Where adaptive cycles refine: yield surface (cells where |tau| - tau_y changes sign or "
+                           "lies within Yield band; yield-stress fluids only), velocity jumps (jumps of the velocity "
+                           "gradient across faces, Kelly et al. 1983: corners, tips, thin layers), everywhere "
+                           "(uniform refinement).");
+    keys.real("Refined fraction", refined_fraction, Range::closed(0.01, 1.),
+              "Fraction of the cells refined in each adaptive cycle, those with the largest indicator [-].");
+    keys.real("Coarsened fraction", coarsened_fraction, Range::closed(0., 0.5),
+              "Fraction of the cells, those with the smallest indicator (e.g. deep inside rigid plugs and dead "
+              "zones), coarsened in each adaptive cycle where they were refined before [-].");
+    keys.real("Yield band", yield_band, Range::closed(0., 1.),
+              "Yield surface refinement also takes cells where | |tau| / tau_y - 1 | is below this [-].");
+    keys.optional_real("Target relative error", target_relative_error, Range::above(0.),
+                       "Adaptive cycles stop once the error bar of every targeted number is below this fraction of "
+                       "its value [-]; not set: all Adaptive cycles are run.");
+    keys.names("Targeted numbers", targeted_numbers,
+               "Design numbers (names or symbols, as in summary.json) that Target relative error applies to; "
+               "empty: the key numbers of the case.");
+    keys.optional_real("Maximum unknowns", maximum_unknowns, Range::above(0.),
+                       "Budget: no adaptive cycle whose mesh would exceed this many unknowns [-]; not set: none.");
+    keys.optional_real("Maximum wall time", maximum_wall_time, Range::above(0.),
+                       "Budget: no new adaptive cycle once the run has taken this long [s]; not set: none.");
+    keys.boolean("Regularization check", regularization_check,
+                 "Yield-stress fluids regularized after Papanastasiou: solve once more on the final mesh at "
+                 "Regularization factor x M and give every design number a regularization error.");
+    keys.real("Regularization factor", regularization_factor, Range::closed(1.5, 100.),
+              "The larger regularization exponent of the check, as a multiple of the case's M [-].");
+  }
+
   void OutputSection::bind(SectionKeys &keys)
   {
     keys.text("Folder", folder, "Folder for the results; default out/<case name> next to the working directory.");

@@ -148,6 +148,37 @@ namespace lentus::input
     void bind(SectionKeys &keys);
   };
 
+  /// Where an adaptive cycle refines (Accuracy/Refine at).
+  enum class RefineAt
+  {
+    yield_surface,  ///< cells the yield surface |tau| = tau_y crosses, or lies near
+    velocity_jumps, ///< jumps of the velocity gradient across faces (Kelly et al. 1983)
+    everywhere      ///< every cell (uniform refinement)
+  };
+
+  /// subsection Accuracy: error bars on the design numbers, adaptive refinement, a target error.
+  struct AccuracySection
+  {
+    /// Solve at least this many coarser meshes first (as Nonlinear solver/Mesh sequencing does) so
+    /// that every number gets a mesh error; 0: only the meshes that mesh sequencing solves anyway.
+    unsigned int coarser_meshes = 2;
+    /// Refinement cycles after the case's mesh: at most this many (fewer once a target is met).
+    unsigned int adaptive_cycles = 0;
+    std::vector<RefineAt> refine_at{RefineAt::yield_surface, RefineAt::velocity_jumps};
+    double refined_fraction   = 0.25; ///< of the cells, by indicator, refined per cycle [-]
+    double coarsened_fraction = 0.;   ///< of the cells with the smallest indicator, coarsened per cycle [-]
+    double yield_band         = 0.2;  ///< refine where | |tau| / tau_y - 1 | is below this [-]
+    /// Cycles stop once every targeted number's error bar is below this fraction of its value.
+    std::optional<double> target_relative_error;
+    std::vector<std::string> targeted_numbers; ///< names or symbols; empty: the key numbers
+    std::optional<double> maximum_unknowns;      ///< budget: no cycle beyond this many unknowns
+    std::optional<double> maximum_wall_time;     ///< budget [s]: no new cycle after this
+    bool   regularization_check = true; ///< yield-stress fluids: solve again at a larger M
+    double regularization_factor = 4.;  ///< the larger M / M [-]
+
+    void bind(SectionKeys &keys);
+  };
+
   /// subsection Output.
   struct OutputSection
   {

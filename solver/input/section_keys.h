@@ -13,6 +13,7 @@
 
 #include "solver/input/case_file.h"
 
+#include <algorithm>
 #include <optional>
 #include <string>
 #include <utility>
@@ -74,6 +75,38 @@ namespace lentus::input
       for (const auto &[word, choice_value] : choices)
         if (word == given)
           value = choice_value;
+    }
+
+    /// A comma-separated list of named choices (each at most once), e.g. a list of enums.
+    template <class T>
+    void choices(const std::string &key, std::vector<T> &value, const std::vector<std::pair<std::string, T>> &words,
+                 const std::string &meaning)
+    {
+      std::vector<std::string> given, allowed;
+      for (const auto &[word, choice_value] : words)
+        {
+          allowed.push_back(word);
+          for (const T &chosen : value)
+            if (chosen == choice_value)
+              given.push_back(word);
+        }
+      std::string listed;
+      for (const std::string &word : allowed)
+        listed += (listed.empty() ? "" : ", ") + word;
+      names(key, given, meaning + " Choices: " + listed + ".");
+      if (schema)
+        return;
+      std::vector<T> chosen;
+      for (const std::string &word : given)
+        {
+          const auto found = std::find_if(words.begin(), words.end(), [&](const auto &entry) { return entry.first == word; });
+          if (found == words.end())
+            file->fail(path(key), "'" + word + "' is not one of the choices", "a comma-separated list of: " + listed);
+          if (std::find(chosen.begin(), chosen.end(), found->second) != chosen.end())
+            file->fail(path(key), "'" + word + "' is listed twice", "each of " + listed + " at most once");
+          chosen.push_back(found->second);
+        }
+      value = chosen;
     }
 
   private:

@@ -63,6 +63,17 @@ namespace lentus::report
     throw std::out_of_range("no design number '" + name + "'");
   }
 
+  void DesignNumbers::replace(const DesignNumber &number)
+  {
+    for (DesignNumber &entry : entries)
+      if (entry.name == number.name)
+        {
+          entry = number;
+          return;
+        }
+    throw std::out_of_range("no design number '" + number.name + "'");
+  }
+
   void DesignNumbers::mark_key(const std::string &name)
   {
     for (DesignNumber &number : entries)

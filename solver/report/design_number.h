@@ -21,14 +21,17 @@ namespace lentus::report
   /// "flow", "die", "vessel", "energy", "regions".
   const char *to_string(Group group);
 
-  /// How accurate a number is. Empty until an estimate is made (mesh error from a sequence of
-  /// meshes, regularization error from a second Papanastasiou exponent); `method` says how.
+  /// How accurate a number is (solver/report/accuracy.h). Empty until an estimate is made: a mesh
+  /// error from the sequence of meshes a run solved on, a regularization error from a second
+  /// Papanastasiou exponent; the methods say how, in words.
   struct Accuracy
   {
     std::optional<double> mesh_error;           ///< same unit as the value
+    std::string           mesh_method = "not estimated";
+    std::optional<double> order;                ///< of convergence with the mesh, as used
     std::optional<double> regularization_error; ///< same unit as the value
+    std::string           regularization_method = "not estimated";
     std::optional<double> extrapolated;         ///< the value with the estimated errors removed
-    std::string           method = "not estimated";
   };
 
   struct DesignNumber
@@ -57,6 +60,8 @@ namespace lentus::report
     double value(const std::string &name) const;
     /// Marks `name` as a key number if present.
     void mark_key(const std::string &name);
+    /// Replaces the number of the same name; throws std::out_of_range if absent.
+    void replace(const DesignNumber &number);
 
   private:
     std::vector<DesignNumber> entries;

@@ -10,13 +10,21 @@ namespace lentus::report
   }
 
   void SolveHistory::begin_mesh(const std::uint64_t cells, const std::uint64_t unknowns,
-                                const std::string &linear_solver)
+                                const std::string &linear_solver, const std::string &refinement)
   {
     MeshRecord mesh;
+    mesh.refinement    = refinement;
     mesh.cells         = cells;
     mesh.unknowns      = unknowns;
     mesh.linear_solver = linear_solver;
     mesh_records.push_back(mesh);
+  }
+
+  void SolveHistory::add_mesh_seconds(const double seconds)
+  {
+    if (mesh_records.empty())
+      throw std::logic_error("SolveHistory: mesh time before any mesh");
+    mesh_records.back().other_seconds += seconds;
   }
 
   void SolveHistory::begin_solve(const std::string &label, const double initial_residual)

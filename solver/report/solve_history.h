@@ -41,16 +41,21 @@ namespace lentus::report
   {
     std::uint64_t cells = 0, unknowns = 0;
     std::string   linear_solver; ///< as chosen for this mesh
+    std::string   refinement = "case mesh"; ///< how the mesh was made: "coarser mesh", "adaptive cycle 1: ..."
     // Totals over the mesh's solves.
     unsigned int newton = 0, picard = 0, linear = 0;
     double       seconds = 0.; ///< in nonlinear iterations
+    double       other_seconds = 0.; ///< refinement, indicator and set-up of the mesh
   };
 
   class SolveHistory
   {
   public:
     /// A new mesh: the solves that follow belong to it.
-    void begin_mesh(std::uint64_t cells, std::uint64_t unknowns, const std::string &linear_solver);
+    void begin_mesh(std::uint64_t cells, std::uint64_t unknowns, const std::string &linear_solver,
+                    const std::string &refinement = "case mesh");
+    /// Wall time of the current mesh outside the nonlinear iterations (refinement, set-up) [s].
+    void add_mesh_seconds(double seconds);
     /// A new solve on the current mesh.
     void begin_solve(const std::string &label, double initial_residual);
     /// An iteration of the current solve.

@@ -24,6 +24,13 @@ namespace lentus::report
     {
       return value ? number(*value) : Json(nullptr);
     }
+
+    std::string format_error(const double error)
+    {
+      char text[40];
+      std::snprintf(text, sizeof text, "%.2g", error);
+      return text;
+    }
   } // namespace
 
   std::string to_json(const Summary &summary)
@@ -47,10 +54,32 @@ namespace lentus::report
                              {"symbol", entry.symbol},
                              {"group", to_string(entry.group)},
                              {"key", entry.key},
+                             {"error", optional_number(total_error(entry.accuracy))},
                              {"mesh error", optional_number(entry.accuracy.mesh_error)},
+                             {"mesh error method", entry.accuracy.mesh_method},
+                             {"order of convergence", optional_number(entry.accuracy.order)},
                              {"regularization error", optional_number(entry.accuracy.regularization_error)},
-                             {"extrapolated value", optional_number(entry.accuracy.extrapolated)},
-                             {"error method", entry.accuracy.method}};
+                             {"regularization error method", entry.accuracy.regularization_method},
+                             {"extrapolated value", optional_number(entry.accuracy.extrapolated)}};
+
+    const RunAccuracy &accuracy = summary.accuracy;
+    Json &estimate = json["accuracy"] = Json::object();
+    estimate["error"] = "per design number: error = mesh error + regularization error, in the number's unit; "
+                        "an estimate, not a guarantee";
+    estimate["target relative error"] = optional_number(accuracy.target);
+    estimate["target"] = accuracy.target ? (accuracy.target_met ? "met" : "not met") : "none";
+    estimate["target status"] = accuracy.target_status;
+    estimate["regularization factor"] =
+      accuracy.regularization_factor > 0. ? number(accuracy.regularization_factor) : Json(nullptr);
+    estimate["regularization check"] = accuracy.regularization_factor > 0. ? "made" : accuracy.regularization_note;
+    Json &sequence = estimate["meshes"] = Json::array();
+    for (const MeshNumbers &mesh : accuracy.meshes)
+      {
+        Json values = Json::object();
+        for (const DesignNumber &entry : mesh.numbers.all())
+          values[entry.name] = number(entry.value);
+        sequence.push_back({{"cells", mesh.cells}, {"unknowns", mesh.unknowns}, {"design numbers", std::move(values)}});
+      }
 
     // The iteration totals are those of the final mesh; every mesh has its own line in "meshes".
     const MeshRecord   final_mesh = history.meshes().empty() ? MeshRecord() : history.meshes().back();
@@ -74,6 +103,8 @@ namespace lentus::report
     for (const MeshRecord &mesh : history.meshes())
       meshes.push_back({{"unknowns", mesh.unknowns},
                         {"cells", mesh.cells},
+                        {"refinement", mesh.refinement},
+                        {"set-up seconds", number(mesh.other_seconds)},
                         {"linear solver", mesh.linear_solver},
                         {"Newton iterations", mesh.newton},
                         {"Picard iterations", mesh.picard},
@@ -107,7 +138,10 @@ namespace lentus::report
     for (const DesignNumber &number : numbers.all())
       {
         char line[300];
-        std::snprintf(line, sizeof line, "  %-45s %14.6g %s", number.name.c_str(), number.value, number.unit.c_str());
+        const std::optional<double> error = total_error(number.accuracy);
+        const std::string error_text = error ? "+/- " + format_error(*error) : std::string();
+        std::snprintf(line, sizeof line, "  %-45s %14.6g %-12s %s", number.name.c_str(), number.value,
+                      error_text.c_str(), number.unit.c_str());
         lines.emplace_back(line);
       }
     return lines;

@@ -2,6 +2,7 @@
 // numerics and the cautions. summary.json is this, serialized by to_json().
 #pragma once
 
+#include "solver/report/accuracy.h"
 #include "solver/report/design_number.h"
 #include "solver/report/solve_history.h"
 
@@ -20,6 +21,17 @@ namespace lentus::report
     unsigned int ranks = 1;
   };
 
+  /// How the run estimated its accuracy (the numbers' own estimates are in their Accuracy).
+  struct RunAccuracy
+  {
+    std::optional<double>    target;        ///< Accuracy/Target relative error
+    bool                     target_met = false;
+    std::string              target_status; ///< in words; "" without a target
+    double                   regularization_factor = 0.; ///< of the check made; 0: none
+    std::string              regularization_note;       ///< why there is no check, when there is none
+    std::vector<MeshNumbers> meshes;                    ///< every converged mesh, coarse to fine
+  };
+
   struct Summary
   {
     std::string case_file;
@@ -34,11 +46,12 @@ namespace lentus::report
     SolveHistory          history;
     Resources             resources;
     std::vector<std::string> case_cautions; ///< beside the general caution (report::caution)
+    RunAccuracy              accuracy;
   };
 
   /// summary.json's text (nlohmann-json; see SUMMARY in DEVELOPERS.md for the fields).
   std::string to_json(const Summary &summary);
 
-  /// The design numbers as aligned lines "  name   value unit" for the log and the terminal.
+  /// The design numbers as aligned lines "  name   value +/- error unit" for the log and the terminal.
   std::vector<std::string> design_number_lines(const DesignNumbers &numbers);
 } // namespace lentus::report

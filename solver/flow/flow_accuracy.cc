@@ -1,0 +1,292 @@
+// What gives a run's design numbers their error bars, after the solve on the case's mesh:
+// adaptive cycles (refine where the yield surface lies and where the velocity gradient jumps,
+// solve again from the previous solution) until a target error is met or a budget is spent, then
+// the regularization check (the same mesh at a larger Papanastasiou exponent).
+#include "rheology/law_registry.h"
+#include "solver/errors.h"
+#include "solver/flow/flow_state.h"
+
+#include <deal.II/base/quadrature_lib.h>
+#include <deal.II/base/timer.h>
+#include <deal.II/distributed/grid_refinement.h>
+#include <deal.II/fe/fe_values.h>
+#include <deal.II/numerics/error_estimator.h>
+
+#include <algorithm>
+#include <cmath>
+#include <cstdio>
+
+namespace lentus::flow
+{
+  using namespace dealii;
+
+  namespace
+  {
+    std::string format(const char *pattern, const double value)
+    {
+      char buffer[100];
+      std::snprintf(buffer, sizeof buffer, pattern, value);
+      return buffer;
+    }
+
+    std::string refine_at_names(const std::vector<input::RefineAt> &refine_at)
+    {
+      std::string names;
+      for (const input::RefineAt where : refine_at)
+        names += std::string(names.empty() ? "" : ", ") +
+                 (where == input::RefineAt::yield_surface  ? "yield surface" :
+                  where == input::RefineAt::velocity_jumps ? "velocity jumps" :
+                                                             "everywhere");
+      return names;
+    }
+
+    /// Yield surface: 1 + closeness on cells where the yield margin |tau| / tau_y - 1 changes sign
+    /// over a 4 x 4 grid of sample points or comes within `band` of 0 (1 + 1 for a crossing).
+    void add_yield_surface_indicator(const FlowState &state, const double band, dealii::Vector<float> &indicator)
+    {
+      const double tau_y = state.physics.law->yield_stress();
+      if (!(tau_y > 0.))
+        return;
+      const QIterated<2>     samples(QTrapezoid<1>(), 3);
+      FEValues<2>            fe_values(state.mesh.fe, samples, update_values | update_gradients | update_quadrature_points);
+      const unsigned int     n_components = state.physics.n_velocity + 1;
+      std::vector<dealii::Vector<double>>             values(samples.size(), dealii::Vector<double>(n_components));
+      std::vector<std::vector<Tensor<1, 2>>>          gradients(samples.size(), std::vector<Tensor<1, 2>>(n_components));
+      for (const auto &cell : state.mesh.dof_handler.active_cell_iterators())
+        if (cell->is_locally_owned())
+          {
+            fe_values.reinit(cell);
+            fe_values.get_function_values(state.solution, values);
+            fe_values.get_function_gradients(state.solution, gradients);
+            double lowest = HUGE_VAL, highest = -HUGE_VAL, nearest = HUGE_VAL;
+            for (unsigned int q = 0; q < samples.size(); ++q)
+              {
+                double       u[3];
+                Tensor<1, 2> grad_u[3];
+                for (unsigned int c = 0; c < state.physics.n_velocity; ++c)
+                  {
+                    u[c]      = values[q][c];
+                    grad_u[c] = gradients[q][c];
+                  }
+                const Point<2> &x = fe_values.quadrature_point(q);
+                // On the axis r = 0 the hoop terms are limits; evaluate just off it.
+                const Point<2>   at(is_axisymmetric(state.physics.kind) ? std::max(x[0], 1e-12) : x[0], x[1]);
+                const Kinematics k         = kinematics(state.physics.kind, at, u, grad_u);
+                const double     gamma_dot = shear_rate(k.L);
+                const double     margin    = state.physics.law->evaluate(gamma_dot).value * gamma_dot / tau_y - 1.;
+                lowest                     = std::min(lowest, margin);
+                highest                    = std::max(highest, margin);
+                nearest                    = std::min(nearest, std::abs(margin));
+              }
+            float &value = indicator(cell->active_cell_index());
+            if (lowest < 0. && highest > 0.)
+              value += 2.f;
+            else if (band > 0. && nearest < band)
+              value += static_cast<float>(1. + (1. - nearest / band));
+          }
+    }
+
+    /// Velocity jumps: Kelly et al.'s (1983) estimator of the velocity, scaled to at most 1.
+    void add_velocity_jump_indicator(const FlowState &state, dealii::Vector<float> &indicator)
+    {
+      dealii::Vector<float> jumps(state.mesh.triangulation.n_active_cells());
+      ComponentMask         velocity(state.physics.n_velocity + 1, true);
+      velocity.set(state.physics.n_velocity, false);
+      KellyErrorEstimator<2>::estimate(state.mesh.dof_handler, QGauss<1>(state.mesh.fe.degree + 1), {}, state.solution,
+                                       jumps, velocity, nullptr, numbers::invalid_unsigned_int,
+                                       state.mesh.triangulation.locally_owned_subdomain());
+      float largest = 0.f;
+      for (const auto &cell : state.mesh.triangulation.active_cell_iterators())
+        if (cell->is_locally_owned())
+          largest = std::max(largest, jumps(cell->active_cell_index()));
+      largest = Utilities::MPI::max(largest, state.mesh.comm);
+      if (largest > 0.f)
+        for (const auto &cell : state.mesh.triangulation.active_cell_iterators())
+          if (cell->is_locally_owned())
+            indicator(cell->active_cell_index()) += jumps(cell->active_cell_index()) / largest;
+    }
+
+    /// Sets the refine and coarsen flags of one adaptive cycle.
+    void flag_cells(FlowState &state)
+    {
+      const input::AccuracySection &accuracy = state.physics.flow.accuracy;
+      const auto                   &refine_at = accuracy.refine_at;
+      auto                         &triangulation = state.mesh.triangulation;
+      if (std::find(refine_at.begin(), refine_at.end(), input::RefineAt::everywhere) != refine_at.end())
+        {
+          for (const auto &cell : triangulation.active_cell_iterators())
+            if (cell->is_locally_owned())
+              cell->set_refine_flag();
+          return;
+        }
+      dealii::Vector<float> indicator(triangulation.n_active_cells());
+      if (std::find(refine_at.begin(), refine_at.end(), input::RefineAt::yield_surface) != refine_at.end())
+        add_yield_surface_indicator(state, accuracy.yield_band, indicator);
+      if (std::find(refine_at.begin(), refine_at.end(), input::RefineAt::velocity_jumps) != refine_at.end())
+        add_velocity_jump_indicator(state, indicator);
+      parallel::distributed::GridRefinement::refine_and_coarsen_fixed_number(triangulation, indicator,
+                                                                             accuracy.refined_fraction,
+                                                                             accuracy.coarsened_fraction);
+      // Nothing where no indicator asks for it, and no cell coarser than the case's mesh.
+      const unsigned int case_level = state.physics.flow.geometry_keys.refinement;
+      for (const auto &cell : triangulation.active_cell_iterators())
+        if (cell->is_locally_owned())
+          {
+            if (cell->refine_flag_set() && !(indicator(cell->active_cell_index()) > 0.f))
+              cell->clear_refine_flag();
+            if (cell->coarsen_flag_set() && static_cast<unsigned int>(cell->level()) <= case_level)
+              cell->clear_coarsen_flag();
+          }
+    }
+
+    /// The targeted numbers of the case: its names or symbols, else the key numbers.
+    std::vector<const report::DesignNumber *> targeted(const FlowState &state, const report::DesignNumbers &numbers)
+    {
+      const input::FlowCase                    &flow = state.physics.flow;
+      std::vector<const report::DesignNumber *> chosen;
+      if (flow.accuracy.targeted_numbers.empty())
+        {
+          for (const report::DesignNumber &number : numbers.all())
+            if (number.key)
+              chosen.push_back(&number);
+          return chosen;
+        }
+      for (const std::string &name : flow.accuracy.targeted_numbers)
+        {
+          const report::DesignNumber *found = nullptr;
+          for (const report::DesignNumber &number : numbers.all())
+            if (number.name == name || number.symbol == name)
+              found = &number;
+          if (!found)
+            {
+              std::string known;
+              for (const report::DesignNumber &number : numbers.all())
+                known += (known.empty() ? "" : ", ") + number.name + " (" + number.symbol + ")";
+              throw InputError(flow.case_file, flow.targeted_numbers_line, "Accuracy/Targeted numbers",
+                               "Accuracy/Targeted numbers: this case has no design number '" + name +
+                                 "'; allowed: the names or symbols of " + known);
+            }
+          chosen.push_back(found);
+        }
+      return chosen;
+    }
+
+    /// Whether the mesh error of every targeted number is below the target, on the meshes so far.
+    bool mesh_target_met(const FlowState &state, const SolveOutcome &outcome, std::string &worst)
+    {
+      report::DesignNumbers numbers = outcome.mesh_numbers.back().numbers;
+      report::estimate_accuracy(numbers, outcome.mesh_numbers, nullptr, 0.);
+      return accuracy_target_met(state, numbers, worst);
+    }
+    void adaptive_cycles(FlowState &state, SolveOutcome &outcome, const double seconds_so_far)
+    {
+      const input::AccuracySection &accuracy   = state.physics.flow.accuracy;
+      const bool                    has_target = accuracy.target_relative_error.has_value();
+      Timer                         clock;
+      std::string                   worst;
+      unsigned int                  cycle = 1;
+      for (; cycle <= accuracy.adaptive_cycles && outcome.converged; ++cycle)
+        {
+          if (has_target && mesh_target_met(state, outcome, worst))
+            break;
+          const double unknowns = static_cast<double>(state.mesh.dof_handler.n_dofs());
+          // A cycle multiplies the unknowns by about 1 + 3 x the refined fraction (four children a cell).
+          const double expected = unknowns * (1. + 3. * accuracy.refined_fraction);
+          if (accuracy.maximum_unknowns && expected > *accuracy.maximum_unknowns)
+            {
+              outcome.target_status = "budget spent after " + std::to_string(cycle - 1) +
+                                      " adaptive cycles: the next would exceed Maximum unknowns (" +
+                                      format("%.0f", *accuracy.maximum_unknowns) + ")";
+              return;
+            }
+          if (accuracy.maximum_wall_time && seconds_so_far + clock.wall_time() > *accuracy.maximum_wall_time)
+            {
+              outcome.target_status = "budget spent after " + std::to_string(cycle - 1) +
+                                      " adaptive cycles: Maximum wall time (" + format("%g", *accuracy.maximum_wall_time) +
+                                      " s) reached";
+              return;
+            }
+          Timer timer;
+          flag_cells(state);
+          transfer_to_flagged_mesh(state);
+          const std::string where = refine_at_names(accuracy.refine_at);
+          record_mesh(state, outcome, "adaptive cycle " + std::to_string(cycle) + ": " + where);
+          outcome.history.add_mesh_seconds(timer.wall_time());
+          state.log.line("Adaptive cycle " + std::to_string(cycle) + " (" + where + "): " +
+                         std::to_string(state.mesh.triangulation.n_global_active_cells()) + " cells, " +
+                         std::to_string(state.mesh.dof_handler.n_dofs()) + " unknowns" +
+                         format(" (indicator and refinement %.2f s)", timer.wall_time()));
+          outcome.converged = solve_from_current(state, state.physics, outcome, "adaptive cycle " + std::to_string(cycle));
+          if (outcome.converged)
+            outcome.mesh_numbers.push_back({state.mesh.triangulation.n_global_active_cells(),
+                                            state.mesh.dof_handler.n_dofs(), current_design_numbers(state)});
+        }
+      outcome.target_status = "after " + std::to_string(cycle - 1) + " of at most " +
+                              std::to_string(accuracy.adaptive_cycles) + " adaptive cycles";
+    }
+
+    void regularization_check(FlowState &state, SolveOutcome &outcome)
+    {
+      const input::FlowCase &flow = state.physics.flow;
+      const std::string      key  = rheology::registry().find(flow.fluid.law_name).regularization;
+      if (key.empty() || !(state.physics.law->yield_stress() > 0.))
+        {
+          outcome.regularization_note = "not needed: the fluid has no regularized yield stress";
+          return;
+        }
+      if (!flow.accuracy.regularization_check)
+        {
+          outcome.regularization_note = "switched off (Accuracy/Regularization check = false)";
+          return;
+        }
+      if (!outcome.converged)
+        {
+          outcome.regularization_note = "not made: the run did not converge";
+          return;
+        }
+      const double factor = flow.accuracy.regularization_factor;
+      const double larger = factor * flow.fluid.parameters.at(key);
+      Physics      stiffer = state.physics;
+      stiffer.law          = law_with(flow.fluid, key, larger);
+      const Vector solved  = state.solution;
+      const std::string label = "regularization check: " + key + " = " + rheology::format_short(larger);
+      state.log.line("Regularization check: the final mesh again at " + key + " = " + rheology::format_short(larger) +
+                     " (" + format("%g", factor) + " x the case's)");
+      const std::string reason = outcome.reason;
+      if (solve_from_current(state, stiffer, outcome, label, true))
+        {
+          outcome.at_larger_m           = current_design_numbers(state, stiffer);
+          outcome.regularization_factor = factor;
+        }
+      else
+        outcome.regularization_note = "did not converge (" + outcome.reason + "); no regularization error";
+      outcome.reason = reason;
+      state.solution = solved;
+    }
+  } // namespace
+
+  bool accuracy_target_met(const FlowState &state, const report::DesignNumbers &numbers, std::string &worst)
+  {
+    const double target  = *state.physics.flow.accuracy.target_relative_error;
+    double       largest = -1.;
+    bool         met     = true;
+    for (const report::DesignNumber *number : targeted(state, numbers))
+      {
+        const auto   error    = report::total_error(number->accuracy);
+        const double relative = !error ? HUGE_VAL : *error == 0. ? 0. : *error / std::abs(number->value);
+        met                   = met && relative <= target;
+        if (relative > largest)
+          {
+            largest = relative;
+            worst   = number->name + (error ? ", error bar " + format("%.3g", relative * 100.) + "%" : ", no error bar");
+          }
+      }
+    return met;
+  }
+
+  void improve_accuracy(FlowState &state, SolveOutcome &outcome, const double seconds_so_far)
+  {
+    adaptive_cycles(state, outcome, seconds_so_far);
+    regularization_check(state, outcome);
+  }
+} // namespace lentus::flow
