@@ -55,6 +55,8 @@ namespace lentus::flow
                          summary.reason + " (last iterate written to " + folder + ", marked not converged)";
     result.numbers   = summary.numbers;
     result.meshes    = summary.history.meshes();
+    result.target_met    = summary.accuracy.target_met;
+    result.target_status = summary.accuracy.target_status;
     result.newton_iterations = result.meshes.empty() ? 0 : result.meshes.back().newton;
     return result;
   }

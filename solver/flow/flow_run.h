@@ -24,6 +24,8 @@ namespace lentus::flow
     report::DesignNumbers           numbers; ///< of the last iterate
     unsigned int                    newton_iterations = 0; ///< on the final mesh
     std::vector<report::MeshRecord> meshes;                ///< coarsest first; the last is the final mesh
+    bool                            target_met = false;    ///< Accuracy/Target relative error met
+    std::string                     target_status;         ///< in words; "" without a target
 
     /// The value of the design number `name`; throws std::out_of_range if absent.
     double number(const std::string &name) const { return numbers.value(name); }

@@ -348,13 +348,19 @@ namespace lentus::input
     return 0;
   }
 
+  std::pair<std::string, int> CaseFile::place_of(const std::string &path) const
+  {
+    const auto found             = given.find(path);
+    const bool from_command_line = found != given.end() && found->second.line == 0;
+    return {from_command_line ? InputError::command_line_overrides : name, from_command_line ? 0 : line_of(path)};
+  }
+
   void CaseFile::fail(const std::string &path, const std::string &problem, const std::string &allowed) const
   {
-    const auto  found = given.find(path);
-    const bool  from_command_line = found != given.end() && found->second.line == 0;
-    std::string value = get(path);
-    throw InputError(from_command_line ? InputError::command_line_overrides : name,
-                     from_command_line ? 0 : line_of(path), path, path + " = " + (value.empty() ? std::string("(not set)") : value) + ": " + problem +
+    const auto [where, line] = place_of(path);
+    std::string value        = get(path);
+    throw InputError(where, line, path,
+                     path + " = " + (value.empty() ? std::string("(not set)") : value) + ": " + problem +
                        "; allowed: " + allowed);
   }
 

@@ -8,6 +8,7 @@
 #include <map>
 #include <memory>
 #include <string>
+#include <utility>
 #include <vector>
 
 namespace lentus::input
@@ -76,6 +77,10 @@ namespace lentus::input
 
     /// Line of the key's `set`; else of its section's `subsection`; else 0.
     int line_of(const std::string &path) const;
+
+    /// Where a key's value came from: the file and the line of its `set`, or
+    /// InputError::command_line_overrides and 0.
+    std::pair<std::string, int> place_of(const std::string &path) const;
 
     /// Throws InputError "file:line: path = value: problem; allowed: allowed".
     [[noreturn]] void fail(const std::string &path, const std::string &problem, const std::string &allowed) const;

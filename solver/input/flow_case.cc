@@ -302,9 +302,11 @@ namespace lentus::input
     if (!accuracy.targeted_numbers.empty() && !accuracy.target_relative_error)
       file.fail("Accuracy/Targeted numbers", "set, but no Accuracy/Target relative error", "a target, or no names");
     if (accuracy.coarsened_fraction + accuracy.refined_fraction > 1.)
-      file.fail("Accuracy/Coarsened fraction", "with Refined fraction above 1 in all",
+      file.fail("Accuracy/Coarsened fraction",
+                "with Accuracy/Refined fraction = " + rheology::format_short(accuracy.refined_fraction) +
+                  ", more than all the cells",
                 "at most 1 - Refined fraction = " + rheology::format_short(1. - accuracy.refined_fraction));
-    flow.targeted_numbers_line = file.line_of("Accuracy/Targeted numbers");
+    flow.targeted_numbers_place = file.place_of("Accuracy/Targeted numbers");
 
     flow.output_folder = flow.output.folder.empty() ? (std::filesystem::path("out") / flow.case_name).string() :
                                                       flow.output.folder;

@@ -11,6 +11,7 @@
 #include <cmath>
 #include <memory>
 #include <string>
+#include <utility>
 #include <vector>
 
 namespace lentus::input
@@ -47,7 +48,9 @@ namespace lentus::input
     std::vector<BoundaryCondition>    conditions;   ///< one per role of the geometry
     std::string                       output_folder; ///< Output/Folder, or out/<case name>
     std::string                       complete_text; ///< every key with its value, for the record
-    int targeted_numbers_line = 0; ///< line of Accuracy/Targeted numbers, for a message about an unknown name
+    /// Where Accuracy/Targeted numbers was set (file or command line, line), for a message about a
+    /// name the solved case does not have.
+    std::pair<std::string, int> targeted_numbers_place;
   };
 
   /// Reads and validates a flow case; throws InputError with file, line and key.

@@ -187,7 +187,8 @@ namespace lentus::input
                "Design numbers (names or symbols, as in summary.json) that Target relative error applies to; "
                "empty: the key numbers of the case.");
     keys.optional_real("Maximum unknowns", maximum_unknowns, Range::above(0.),
-                       "Budget: no adaptive cycle whose mesh would exceed this many unknowns [-]; not set: none.");
+                       "Budget: no adaptive cycle whose mesh would exceed this many unknowns (predicted from the cells it "
+                       "would refine, with 10% to spare) [-]; not set: none.");
     keys.optional_real("Maximum wall time", maximum_wall_time, Range::above(0.),
                        "Budget: no new adaptive cycle once the run has taken this long [s]; not set: none.");
     keys.boolean("Regularization check", regularization_check,

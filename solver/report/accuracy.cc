@@ -24,6 +24,24 @@ namespace lentus::report
                 " and safety factor 3 (Roache 1994), not extrapolated"};
     }
 
+    /// The same from three meshes whose changes show no order (they oscillate, or the last one
+    /// collapses, as when an adaptive cycle refines away from what decides a number): the larger of
+    /// the two steps' estimates, so that a step that happened not to change the number does not
+    /// make its bar vanish (common practice: bound an oscillation by its amplitude).
+    MeshErrorEstimate fallback(const MeshValue &fine, const MeshValue &middle, const MeshValue &coarse,
+                               const std::string &why)
+    {
+      MeshErrorEstimate estimate = fallback(fine.value, middle.value, std::sqrt(fine.cells / middle.cells), why);
+      const double      earlier  = 3. * std::abs(middle.value - coarse.value) /
+                             (std::pow(std::sqrt(middle.cells / coarse.cells), theoretical_order) - 1.);
+      if (earlier > estimate.error)
+        {
+          estimate.error = earlier;
+          estimate.method += "; bound by the larger, earlier step";
+        }
+      return estimate;
+    }
+
     /// Celik et al. (2008), eqs. 3a-3c: the apparent order p from three solutions, by fixed-point
     /// iteration; NaN when it has none.
     double apparent_order(const double r21, const double r32, const double e21, const double e32)
@@ -84,10 +102,10 @@ namespace lentus::report
     if (!(r32 > 1.))
       return fallback(fine.value, middle.value, r21, "three meshes not refined in turn");
     if (e32 / e21 < 0.)
-      return fallback(fine.value, middle.value, r21, "three meshes, oscillating values");
+      return fallback(fine, middle, coarse, "three meshes, oscillating values");
     const double p = apparent_order(r21, r32, e21, e32);
     if (!std::isfinite(p) || p < 0.5 || p > 4.)
-      return fallback(fine.value, middle.value, r21,
+      return fallback(fine, middle, coarse,
                       std::isfinite(p) ? format("three meshes, implausible observed order %.3g", p) :
                                          std::string("three meshes, no observed order"));
     const double rp = std::pow(r21, p);

@@ -45,7 +45,8 @@ namespace lentus::report
   /// Eng. 130:078001, eqs. 3-5), extrapolation by their eq. 6 and the fine-grid convergence index
   /// GCI = 1.25 |phi_1 - phi_2| / (r^p - 1) (Roache 1994, J. Fluids Eng. 116:405; Celik et al. eq. 8).
   /// With two meshes, oscillating values or an order outside [0.5, 4]: the theoretical order and a
-  /// safety factor of 3 (Roache 1994). Unchanged values: error 0. Fewer than two meshes: nothing.
+  /// safety factor of 3 (Roache 1994), from three meshes the larger of the last two steps' bars.
+  /// Changes below 1e-10 of the values count as none; unchanged values: error 0. One mesh: nothing.
   std::optional<MeshErrorEstimate> estimate_mesh_error(const std::vector<MeshValue> &sequence);
 
   struct RegularizationEstimate
