@@ -42,6 +42,7 @@ vertical-align: top; } th { background: #f0f0f0; }
 table.wide { width: 100%; }
 table.design-numbers { min-width: 60%; }
 td.value, td.error, td.number { text-align: right; font-family: monospace; white-space: nowrap; }
+td.error .parts { color: #555; font-size: 85%; }
 th.number { text-align: right; }
 td.unit { white-space: nowrap; }
 tr.key td.name { font-weight: bold; }
@@ -77,13 +78,40 @@ def _numeric_text(value):
 
 
 def _error_text(entry):
-    """The estimated error of a design number, or "" when none was estimated."""
+    """The error bar of a design number (mesh + regularization error) with its parts, or "" when
+    none was estimated."""
     parts = []
     for key, what in (("mesh error", "mesh"), ("regularization error", "regularization")):
         value = entry.get(key)
         if value is not None:
-            parts.append("&plusmn; %s (%s)" % (_escape("%.2g" % abs(float(value))), what))
-    return "<br>".join(parts)
+            parts.append("%s %s" % (what, _escape("%.2g" % abs(float(value)))))
+    if not parts:
+        return ""
+    total = entry.get("error")
+    if total is None:
+        total = sum(abs(float(entry[key])) for key in ("mesh error", "regularization error") if entry.get(key) is not None)
+    return "&plusmn; %s <span class=\"parts\">(%s)</span>" % (_escape("%.2g" % abs(float(total))), ", ".join(parts))
+
+
+def _accuracy(summary):
+    """How the error bars were obtained: the target, the regularization check, the meshes."""
+    accuracy = summary.get("accuracy")
+    if not isinstance(accuracy, dict):
+        return ""
+    rows = []
+    if accuracy.get("target") not in (None, "none"):
+        rows.append(("target relative error", "%g" % accuracy.get("target relative error")))
+        rows.append(("target", accuracy.get("target status", "")))
+    check = accuracy.get("regularization check", "")
+    if accuracy.get("regularization factor"):
+        check = "solved again at %g x M" % accuracy["regularization factor"]
+    rows.append(("regularization check", check))
+    meshes = accuracy.get("meshes") or []
+    rows.append(("meshes for the mesh error", ", ".join("%d cells" % mesh.get("cells", 0) for mesh in meshes) or "one"))
+    body = "\n".join('<tr><td class="label">%s</td><td>%s</td></tr>' % (_escape(name), _escape(value))
+                     for name, value in rows)
+    return ('<h2>Accuracy</h2>\n<p class="note">%s</p>\n<table class="accuracy">\n%s\n</table>' % (
+        _escape(accuracy.get("error", "")), body))
 
 
 def _has_errors(numbers):
@@ -237,21 +265,31 @@ def _checks(case, failures):
     if not summary.get("converged", False):
         items.append("<strong>The solve did not converge</strong>: the numbers and pictures are of the last "
                      "iterate and must not be used. Reason: %s" % _escape(summary.get("reason", "")))
-    refinement = case.inputs.get("Geometry/Refinement")
+    accuracy = summary.get("accuracy") if isinstance(summary.get("accuracy"), dict) else {}
+    meshes = accuracy.get("meshes") or []
     cells = summary.get("numerics", {}).get("cells")
-    if refinement is not None:
-        try:
-            finer = "%d" % (int(float(refinement)) + 1)
-        except ValueError:
-            finer = "one level more"
-        items.append("Mesh: %s cells at Geometry/Refinement = %s. Repeat the case with Refinement = %s and compare "
-                     "the design numbers; a change you cannot accept means this mesh is too coarse (common "
-                     "practice)." % (_escape(cells), _escape(refinement), finer))
+    if len(meshes) >= 2:
+        items.append("Mesh: the &plusmn; error bars come from the %d meshes this run solved on (%s cells; see "
+                     "Accuracy below). They are estimates (Grid Convergence Index), not bounds; a bar that matters "
+                     "to a decision deserves a run on a finer mesh or more Accuracy/Adaptive cycles." % (
+                         len(meshes), _escape(", ".join(str(mesh.get("cells", "?")) for mesh in meshes))))
+    else:
+        items.append("Mesh: %s cells, and no mesh error was estimated (one mesh). Set Accuracy/Coarser meshes = 2 or "
+                     "repeat the case with a larger Geometry/Refinement and compare the design numbers." % _escape(cells))
+    if accuracy.get("target") == "not met":
+        items.append("<strong>Accuracy target not met</strong>: %s." % _escape(accuracy.get("target status", "")))
     if case.yield_stress > 0.:
         exponent = case.inputs.get("Rheology/%s/Regularization exponent" % summary.get("viscosity law", ""), "?")
-        items.append("The unyielded region and the cavern come from a regularized law (Papanastasiou exponent M = "
-                     "%s s): they approach the true ones as M grows; compare two values of M before relying on "
-                     "them." % _escape(exponent))
+        if accuracy.get("regularization factor"):
+            items.append("The unyielded region and the cavern come from a regularized law (Papanastasiou exponent M = "
+                         "%s s); the regularization errors in the table come from a second solve at %g M. They "
+                         "assume the numbers approach the ideal fluid's steadily as M grows." % (
+                             _escape(exponent), accuracy["regularization factor"]))
+        else:
+            items.append("The unyielded region and the cavern come from a regularized law (Papanastasiou exponent M = "
+                         "%s s) and no regularization check was made (%s): they approach the true ones as M grows; "
+                         "compare two values of M before relying on them." % (
+                             _escape(exponent), _escape(accuracy.get("regularization check", "not made"))))
     items.append("The shaded shear-rate range of the flow curve should lie within the shear rates measured on the "
                  "rheometer; outside it the viscosity law is extrapolated.")
     if case.axisymmetric:
@@ -327,6 +365,7 @@ def write_report(case, pictures, failures):
 </section>
 <section id="design-numbers"><h2>All design numbers</h2>
 {numbers}
+{accuracy}
 </section>
 <section id="pictures"><h2>Pictures</h2>
 <div class="pictures">
@@ -354,7 +393,7 @@ below the yield stress tau_y. It is 1/sqrt(3) of the von Mises equivalent stress
            status_class="converged" if converged else "failed", status=_escape(status),
            key_status="" if converged else " (NOT CONVERGED: the last iterate, not to be used)",
            cautions=_cautions(summary), checks=_checks(case, failures), key_numbers=_key_numbers(numbers),
-           numbers=_number_table(numbers), figures=figures or "<p>No pictures.</p>",
+           numbers=_number_table(numbers), accuracy=_accuracy(summary), figures=figures or "<p>No pictures.</p>",
            solve_facts=_solve_facts(summary), numerics=_numerics(summary), inputs=_inputs(case),
            case_text=_escape(case_text))
     path = os.path.join(case.folder, "report.html")

@@ -99,7 +99,13 @@ namespace lentus::sweep
       {
         char value[40];
         std::snprintf(value, sizeof value, "%.17g", number.value);
-        text << "number\t" << escape(number.name) << "\t" << value << "\t" << escape(number.unit) << "\n";
+        text << "number\t" << escape(number.name) << "\t" << value << "\t" << escape(number.unit);
+        if (number.error)
+          {
+            std::snprintf(value, sizeof value, "%.17g", *number.error);
+            text << "\t" << value;
+          }
+        text << "\n";
       }
     text << "Newton iterations\t" << row.newton_iterations << "\nwall time\t" << number_text(row.wall_time)
          << "\nranks\t" << row.ranks << "\nend\n";
@@ -143,8 +149,9 @@ namespace lentus::sweep
               row.status = f[1];
             else if (key == "reason")
               row.reason = f[1];
-            else if (key == "number" && f.size() == 4)
-              row.numbers.push_back({f[1], std::stod(f[2]), f[3]});
+            else if (key == "number" && (f.size() == 4 || f.size() == 5))
+              row.numbers.push_back({f[1], std::stod(f[2]), f[3],
+                                     f.size() == 5 ? std::optional<double>(std::stod(f[4])) : std::nullopt});
             else if (key == "Newton iterations")
               row.newton_iterations = std::stoul(f[1]);
             else if (key == "wall time")
@@ -190,15 +197,21 @@ namespace lentus::sweep
                                                  const bool with_names)
   {
     // Design-number columns: in order of first appearance; the unit of the first row that has it.
+    // Each followed by its error column when some row has an error bar for it.
     std::vector<std::pair<std::string, std::string>> columns;
+    std::vector<bool>                                with_error;
     for (const ResultRow &row : rows)
       for (const ResultNumber &number : row.numbers)
         {
-          bool known = false;
-          for (const auto &column : columns)
-            known = known || column.first == number.name;
-          if (!known)
-            columns.emplace_back(number.name, number.unit);
+          std::size_t k = 0;
+          while (k < columns.size() && columns[k].first != number.name)
+            ++k;
+          if (k == columns.size())
+            {
+              columns.emplace_back(number.name, number.unit);
+              with_error.push_back(false);
+            }
+          with_error[k] = with_error[k] || number.error.has_value();
         }
 
     std::ostringstream csv, jsonl;
@@ -208,8 +221,12 @@ namespace lentus::sweep
     for (std::size_t k = 0; k < varied_keys.size(); ++k)
       csv << "," << csv_cell(varied_keys[k] + (varied_units[k].empty() ? "" : " [" + varied_units[k] + "]"));
     csv << ",status,reason";
-    for (const auto &[name, unit] : columns)
-      csv << "," << csv_cell(name + " [" + unit + "]");
+    for (std::size_t k = 0; k < columns.size(); ++k)
+      {
+        csv << "," << csv_cell(columns[k].first + " [" + columns[k].second + "]");
+        if (with_error[k])
+          csv << "," << csv_cell(columns[k].first + " error [" + columns[k].second + "]");
+      }
     csv << ",Newton iterations,wall time [s],ranks,folder,caution\n";
 
     for (const ResultRow &row : rows)
@@ -226,13 +243,18 @@ namespace lentus::sweep
         for (const std::string &key : varied_keys)
           csv << "," << csv_cell(value_of(key));
         csv << "," << csv_cell(row.status) << "," << csv_cell(row.reason);
-        for (const auto &column : columns)
+        for (std::size_t k = 0; k < columns.size(); ++k)
           {
-            std::string cell;
+            std::string cell, error;
             for (const ResultNumber &number : row.numbers)
-              if (number.name == column.first)
-                cell = number_text(number.value);
+              if (number.name == columns[k].first)
+                {
+                  cell  = number_text(number.value);
+                  error = number.error ? number_text(*number.error) : std::string();
+                }
             csv << "," << cell;
+            if (with_error[k])
+              csv << "," << error;
           }
         csv << "," << row.newton_iterations << "," << number_text(row.wall_time) << "," << row.ranks << ","
             << csv_cell(row.folder) << "," << csv_cell(report::caution) << "\n";
@@ -255,7 +277,9 @@ namespace lentus::sweep
         line["reason"] = row.reason;
         json numbers   = json::object();
         for (const ResultNumber &number : row.numbers)
-          numbers[number.name] = {{"value", report::json_number(number.value)}, {"unit", number.unit}};
+          numbers[number.name] = {{"value", report::json_number(number.value)},
+                                  {"error", number.error ? report::json_number(*number.error) : json(nullptr)},
+                                  {"unit", number.unit}};
         line["design numbers"]    = numbers;
         line["Newton iterations"] = row.newton_iterations;
         line["wall time [s]"]     = report::json_number(row.wall_time);

@@ -6,6 +6,7 @@
 #pragma once
 
 #include <cstdint>
+#include <optional>
 #include <string>
 #include <utility>
 #include <vector>
@@ -30,9 +31,10 @@ namespace lentus::sweep
 
   struct ResultNumber
   {
-    std::string name;
-    double      value;
-    std::string unit;
+    std::string           name;
+    double                value;
+    std::string           unit;
+    std::optional<double> error; ///< error bar (mesh + regularization), same unit; none if not estimated
   };
 
   /// One case's line of the table.

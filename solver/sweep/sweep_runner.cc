@@ -4,6 +4,7 @@
 #include "solver/flow/flow_run.h"
 #include "solver/input/case_file.h"
 #include "solver/input/flow_case.h"
+#include "solver/report/accuracy.h"
 #include "solver/report/atomic_file.h"
 #include "solver/report/caution_text.h"
 #include "solver/report/plotting.h"
@@ -140,7 +141,7 @@ namespace lentus::sweep
           row.reason            = result.reason;
           row.newton_iterations = result.newton_iterations;
           for (const report::DesignNumber &number : result.numbers.all())
-            row.numbers.push_back({number.name, number.value, number.unit});
+            row.numbers.push_back({number.name, number.value, number.unit, report::total_error(number.accuracy)});
         }
       catch (const InputError &error)
         {

@@ -179,7 +179,7 @@ namespace
     row.values      = {{p_key, "100, 0"}};
     row.status      = sweep::status::not_converged;
     row.reason      = "line one\nline two";
-    row.numbers     = {{"pressure drop inlet to outlet", 1234.5678901234567, "Pa"}};
+    row.numbers     = {{"pressure drop inlet to outlet", 1234.5678901234567, "Pa", 0.012345678901234567}};
     row.wall_time   = 1.5;
     const std::string text = sweep::row_text(row);
     sweep::ResultRow  back;
@@ -188,6 +188,7 @@ namespace
     EXPECT_EQ(back.reason, row.reason);
     EXPECT_EQ(back.fingerprint, row.fingerprint);
     EXPECT_EQ(back.numbers[0].value, row.numbers[0].value);
+    EXPECT_EQ(back.numbers[0].error, row.numbers[0].error); // the error bar too, to the last bit
     EXPECT_FALSE(sweep::parse_row(text.substr(0, text.size() - 4), back)); // no final "end"
   }
 
@@ -204,7 +205,7 @@ namespace
     row.values  = {{p_key, odd}, {"k", ""}};
     row.status  = sweep::status::bad_input;
     row.reason  = "\n" + odd + "\t";
-    row.numbers = {{odd, -0.0, ""}, {"n", 1e-300, odd}};
+    row.numbers = {{odd, -0.0, "", std::nullopt}, {"n", 1e-300, odd, std::nullopt}};
     sweep::ResultRow back;
     ASSERT_TRUE(sweep::parse_row(sweep::row_text(row), back));
     EXPECT_EQ(back.name, odd);
@@ -231,8 +232,8 @@ namespace
     row.values  = {{p_key, "100, 0"}, {"Geometry/Refinement", "2"}};
     row.status  = sweep::status::not_converged;
     row.reason  = "said \"no\"\tthen\nstopped";
-    row.numbers = {{"maximum speed", std::numeric_limits<double>::quiet_NaN(), "m/s"},
-                   {"flow rate", 1.234567890123e-5, "m^3/s"}};
+    row.numbers = {{"maximum speed", std::numeric_limits<double>::quiet_NaN(), "m/s", std::nullopt},
+                   {"flow rate", 1.234567890123e-5, "m^3/s", std::nullopt}};
     const auto [csv, jsonl] =
       sweep::table_text({row}, {p_key, "Geometry/Refinement"}, {"Pa", ""}, true);
 
@@ -265,17 +266,37 @@ namespace
     row.id      = "case-0000";
     row.values  = {{p_key, "100, 0"}};
     row.status  = sweep::status::converged;
-    row.numbers = {{"maximum speed", 0.25, "m/s"}};
+    row.numbers = {{"maximum speed", 0.25, "m/s", std::nullopt}};
     const auto [csv, jsonl] = sweep::table_text({row}, {p_key}, {"Pa"}, false);
     EXPECT_THAT(csv, HasSubstr("case,Boundary conditions/Pressure values [Pa],status,reason,maximum speed [m/s],"
                                "Newton iterations,wall time [s],ranks,folder,caution\n"));
     EXPECT_THAT(csv, HasSubstr("case-0000,\"100, 0\",converged,,0.25,"));
     const auto line = nlohmann::json::parse(jsonl);
     // Compared as text: Google Test would print a JSON value as a container of itself.
-    EXPECT_EQ(line["design numbers"]["maximum speed"].dump(), R"({"unit":"m/s","value":0.25})");
+    EXPECT_EQ(line["design numbers"]["maximum speed"].dump(), R"({"error":null,"unit":"m/s","value":0.25})");
     EXPECT_EQ(line["values"][p_key]["value"].get<std::string>(), "100, 0");
     EXPECT_EQ(sweep::unit_of_key(input::case_schema(), n_key), "-");
     EXPECT_EQ(sweep::unit_of_key(input::case_schema(), "Geometry/Pipe/Radius"), "m");
+  }
+
+  // A number with an error bar in some row gets an error column beside it (empty where a row has no
+  // bar); the JSON lines carry the bar as "error".
+  TEST(ResultsTable, ErrorBarsGetTheirOwnColumns)
+  {
+    sweep::ResultRow first, second;
+    first.id       = "case-0000";
+    first.status   = sweep::status::converged;
+    first.numbers  = {{"pressure drop inlet to outlet", 2.5e6, "Pa", 1.25e4}, {"maximum speed", 0.25, "m/s", std::nullopt}};
+    second.id      = "case-0001";
+    second.status  = sweep::status::converged;
+    second.numbers = {{"pressure drop inlet to outlet", 3e6, "Pa", std::nullopt}};
+    const auto [csv, jsonl] = sweep::table_text({first, second}, {}, {}, false);
+    EXPECT_THAT(csv, HasSubstr("case,status,reason,pressure drop inlet to outlet [Pa],"
+                               "pressure drop inlet to outlet error [Pa],maximum speed [m/s],Newton iterations"));
+    EXPECT_THAT(csv, HasSubstr("case-0000,converged,,2500000,12500,0.25,"));
+    EXPECT_THAT(csv, HasSubstr("case-0001,converged,,3000000,,,"));
+    const auto line = nlohmann::json::parse(jsonl.substr(0, jsonl.find('\n')));
+    EXPECT_EQ(line["design numbers"]["pressure drop inlet to outlet"]["error"].get<double>(), 1.25e4);
   }
 } // namespace
 
