@@ -104,3 +104,33 @@ end
   // Momentum balance (Bird, Stewart & Lightfoot 2002, sec. 2.3): F_z = -dp pi R^2 = -2 pi N, within 0.5%.
   EXPECT_LT(relative(result.number("axial force on the fluid from wall"), -2. * M_PI), 0.005);
 }
+
+TEST(GmshMesh, AdaptedUnstructuredMeshKeepsTheSlitFlowAndItsBar)
+{
+  // The same slit flow on the unstructured Gmsh channel refined by two adaptive cycles at the
+  // velocity jumps (hanging nodes between cells of different levels). Source as above (Bird, Stewart &
+  // Lightfoot 2002, ch. 8): q = (2n/(2n+1)) (G/K)^(1/n) h^(2+1/n), n = 0.5. The flow rate stays within
+  // 0.5%, the fluid is conserved across the hanging nodes (inlet and outlet rates agree to 1e-9), and
+  // the error bar contains the true error.
+  const double n = 0.5;
+  const double q = 2. * n / (2. * n + 1.) * std::pow(0.5, 2. + 1. / n);
+  const auto   result = run_case("gmsh_adapted_power_law_slit", power_law(n) + gmsh_geometry("channel_msh22.msh", 1., 2) + R"(
+subsection Boundary conditions
+  set No-slip = bottom wall, top wall
+  set Pressure = inlet, outlet
+  set Pressure values = 2, 0
+end
+subsection Accuracy
+  set Adaptive cycles = 2
+  set Refine at = velocity jumps
+end
+)");
+  ASSERT_TRUE(result.converged) << result.reason;
+  ASSERT_EQ(result.meshes.back().refinement.rfind("adaptive cycle 2", 0), 0u);
+  const double outlet = result.number("flow rate out through outlet");
+  EXPECT_LT(relative(outlet, q), 0.005);
+  EXPECT_LT(relative(-result.number("flow rate out through inlet"), outlet), 1e-9);
+  const auto &accuracy = result.numbers.find("flow rate out through outlet")->accuracy;
+  ASSERT_TRUE(accuracy.mesh_error.has_value());
+  EXPECT_GE(*accuracy.mesh_error, std::abs(outlet - q));
+}
