@@ -181,6 +181,7 @@ namespace lentus::flow
       report::estimate_accuracy(numbers, outcome.mesh_numbers, nullptr, 0.);
       return accuracy_target_met(state, numbers, worst);
     }
+
     void adaptive_cycles(FlowState &state, SolveOutcome &outcome, const double seconds_so_far)
     {
       const input::AccuracySection &accuracy   = state.physics.flow.accuracy;
@@ -190,9 +191,11 @@ namespace lentus::flow
       unsigned int                  cycle = 1;
       for (; cycle <= accuracy.adaptive_cycles && outcome.converged; ++cycle)
         {
-          if (has_target && mesh_target_met(state, outcome, worst))
+          if (has_target && !outcome.mesh_numbers.empty() && mesh_target_met(state, outcome, worst))
             break;
-          if (accuracy.maximum_wall_time && seconds_so_far + clock.wall_time() > *accuracy.maximum_wall_time)
+          // Every rank takes the same decision: the slowest rank's clock.
+          const double elapsed = Utilities::MPI::max(seconds_so_far + clock.wall_time(), state.mesh.comm);
+          if (accuracy.maximum_wall_time && elapsed > *accuracy.maximum_wall_time)
             {
               outcome.target_status = "budget spent after " + std::to_string(cycle - 1) +
                                       " adaptive cycles: Maximum wall time (" + format("%g", *accuracy.maximum_wall_time) +
@@ -201,6 +204,15 @@ namespace lentus::flow
             }
           Timer timer;
           flag_cells(state);
+          unsigned int flagged = 0;
+          for (const auto &cell : state.mesh.triangulation.active_cell_iterators())
+            if (cell->is_locally_owned() && cell->refine_flag_set())
+              ++flagged;
+          if (Utilities::MPI::sum(flagged, state.mesh.comm) == 0)
+            {
+              state.log.line("Adaptive cycle " + std::to_string(cycle) + ": no cell to refine; cycles stop");
+              break;
+            }
           if (accuracy.maximum_unknowns)
             {
               // The cells of the next mesh are known from the flags (with the closure the mesh needs);
@@ -295,12 +307,23 @@ namespace lentus::flow
     for (const report::DesignNumber *number : targeted(state, numbers))
       {
         const auto   error    = report::total_error(number->accuracy);
-        const double relative = !error ? HUGE_VAL : *error == 0. ? 0. : *error / std::abs(number->value);
+        const double size     = std::abs(number->value);
+        const double relative = !error ? HUGE_VAL : *error == 0. ? 0. : *error / size;
         met                   = met && relative <= target;
         if (relative > largest)
           {
             largest = relative;
-            worst   = number->name + (error ? ", error bar " + format("%.3g", relative * 100.) + "%" : ", no error bar");
+            worst   = number->name;
+            if (!error)
+              worst += ", no error bar";
+            else
+              {
+                worst += ", error bar " + format("%.3g", relative * 100.) + "%";
+                const auto &accuracy = number->accuracy;
+                if (accuracy.regularization_error && size > 0.)
+                  worst += " (mesh " + format("%.3g", accuracy.mesh_error.value_or(0.) / size * 100.) +
+                           "%, regularization " + format("%.3g", *accuracy.regularization_error / size * 100.) + "%)";
+              }
           }
       }
     return met;

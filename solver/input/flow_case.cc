@@ -299,6 +299,10 @@ namespace lentus::input
     if (accuracy.adaptive_cycles > 0 && accuracy.refine_at.empty())
       file.fail("Accuracy/Refine at", "empty, but Accuracy/Adaptive cycles > 0",
                 "yield surface, velocity jumps or everywhere");
+    if (accuracy.adaptive_cycles > 0 && accuracy.refine_at == std::vector<RefineAt>{RefineAt::yield_surface} &&
+        !(flow.fluid.law->yield_stress() > 0.))
+      file.fail("Accuracy/Refine at", "only the yield surface, but the fluid has no yield stress",
+                "velocity jumps or everywhere (alone or with yield surface)");
     if (!accuracy.targeted_numbers.empty() && !accuracy.target_relative_error)
       file.fail("Accuracy/Targeted numbers", "set, but no Accuracy/Target relative error", "a target, or no names");
     if (accuracy.coarsened_fraction + accuracy.refined_fraction > 1.)
