@@ -106,35 +106,70 @@ namespace lentus::flow
             indicator(cell->active_cell_index()) += jumps(cell->active_cell_index()) / largest;
     }
 
-    /// Sets the refine and coarsen flags of one adaptive cycle.
+    /// Sets the refine and coarsen flags of one adaptive cycle. Each indicator chosen picks its own
+    /// share of Refined fraction (the largest of its values), so that a wide yield band cannot starve
+    /// a singular corner of refinement, nor the other way round; coarsening takes the cells where
+    /// their sum is smallest.
     void flag_cells(FlowState &state)
     {
-      const input::AccuracySection &accuracy = state.physics.flow.accuracy;
-      const auto                   &refine_at = accuracy.refine_at;
+      const input::AccuracySection &accuracy      = state.physics.flow.accuracy;
+      const auto                   &refine_at     = accuracy.refine_at;
       auto                         &triangulation = state.mesh.triangulation;
-      if (std::find(refine_at.begin(), refine_at.end(), input::RefineAt::everywhere) != refine_at.end())
+      const auto chosen = [&](const input::RefineAt where) {
+        return std::find(refine_at.begin(), refine_at.end(), where) != refine_at.end();
+      };
+      if (chosen(input::RefineAt::everywhere))
         {
           for (const auto &cell : triangulation.active_cell_iterators())
             if (cell->is_locally_owned())
               cell->set_refine_flag();
           return;
         }
-      dealii::Vector<float> indicator(triangulation.n_active_cells());
-      if (std::find(refine_at.begin(), refine_at.end(), input::RefineAt::yield_surface) != refine_at.end())
-        add_yield_surface_indicator(state, accuracy.yield_band, indicator);
-      if (std::find(refine_at.begin(), refine_at.end(), input::RefineAt::velocity_jumps) != refine_at.end())
-        add_velocity_jump_indicator(state, indicator);
-      parallel::distributed::GridRefinement::refine_and_coarsen_fixed_number(triangulation, indicator,
-                                                                             accuracy.refined_fraction,
-                                                                             accuracy.coarsened_fraction);
-      // Nothing where no indicator asks for it, and no cell coarser than the case's mesh.
+      std::vector<dealii::Vector<float>> indicators;
+      if (chosen(input::RefineAt::yield_surface) && state.physics.law->yield_stress() > 0.)
+        {
+          indicators.emplace_back(triangulation.n_active_cells());
+          add_yield_surface_indicator(state, accuracy.yield_band, indicators.back());
+        }
+      if (chosen(input::RefineAt::velocity_jumps))
+        {
+          indicators.emplace_back(triangulation.n_active_cells());
+          add_velocity_jump_indicator(state, indicators.back());
+        }
+      if (indicators.empty())
+        return;
+      const double     share = accuracy.refined_fraction / static_cast<double>(indicators.size());
+      std::vector<bool> refine(triangulation.n_active_cells(), false);
+      dealii::Vector<float> sum(triangulation.n_active_cells());
+      for (const dealii::Vector<float> &indicator : indicators)
+        {
+          sum += indicator;
+          parallel::distributed::GridRefinement::refine_and_coarsen_fixed_number(triangulation, indicator, share, 0.);
+          // Nothing where this indicator does not ask for it (a yield band narrower than its share).
+          for (const auto &cell : triangulation.active_cell_iterators())
+            if (cell->is_locally_owned())
+              {
+                if (cell->refine_flag_set() && indicator(cell->active_cell_index()) > 0.f)
+                  refine[cell->active_cell_index()] = true;
+                cell->clear_refine_flag();
+                cell->clear_coarsen_flag();
+              }
+        }
+      if (accuracy.coarsened_fraction > 0.)
+        parallel::distributed::GridRefinement::refine_and_coarsen_fixed_number(triangulation, sum, 0.,
+                                                                               accuracy.coarsened_fraction);
+      // No cell coarser than the case's mesh.
       const unsigned int case_level = state.physics.flow.geometry_keys.refinement;
       for (const auto &cell : triangulation.active_cell_iterators())
         if (cell->is_locally_owned())
           {
-            if (cell->refine_flag_set() && !(indicator(cell->active_cell_index()) > 0.f))
-              cell->clear_refine_flag();
-            if (cell->coarsen_flag_set() && static_cast<unsigned int>(cell->level()) <= case_level)
+            cell->clear_refine_flag();
+            if (refine[cell->active_cell_index()])
+              {
+                cell->clear_coarsen_flag();
+                cell->set_refine_flag();
+              }
+            else if (cell->coarsen_flag_set() && static_cast<unsigned int>(cell->level()) <= case_level)
               cell->clear_coarsen_flag();
           }
     }
