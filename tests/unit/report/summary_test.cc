@@ -58,9 +58,41 @@ TEST(Summary, NumbersRoundTripAndNonFiniteIsNull)
   EXPECT_EQ(dp.at("group"), "flow");
   EXPECT_TRUE(dp.at("key").get<bool>());
   EXPECT_TRUE(dp.at("mesh error").is_null());
-  EXPECT_EQ(dp.at("error method"), "not estimated");
+  EXPECT_TRUE(dp.at("error").is_null());
+  EXPECT_EQ(dp.at("mesh error method"), "not estimated");
+  EXPECT_EQ(dp.at("regularization error method"), "not estimated");
   EXPECT_TRUE(numbers.at("not a number").at("value").is_null());
   EXPECT_TRUE(json.at("dead-zone speed fraction").is_null());
+}
+
+// An estimated accuracy is written in full: the bar is the sum of its parts, each with its method, and
+// the accuracy block lists every mesh's numbers.
+TEST(Summary, AccuracyIsWrittenWithItsMethods)
+{
+  Summary summary = two_mesh_summary();
+  DesignNumber dp = *summary.numbers.find("pressure drop inlet to outlet");
+  dp.accuracy.mesh_error           = 3.;
+  dp.accuracy.mesh_method          = "three meshes";
+  dp.accuracy.order                = 1.5;
+  dp.accuracy.regularization_error = 0.5;
+  dp.accuracy.regularization_method = "second solve";
+  dp.accuracy.extrapolated         = 1230.;
+  summary.numbers.replace(dp);
+  summary.accuracy.regularization_factor = 4.;
+  summary.accuracy.meshes.push_back({64, 1000, summary.numbers});
+  const nlohmann::json json  = nlohmann::json::parse(to_json(summary));
+  const auto          &entry = json.at("design numbers").at("pressure drop inlet to outlet");
+  EXPECT_EQ(entry.at("error").get<double>(), 3.5);
+  EXPECT_EQ(entry.at("mesh error method"), "three meshes");
+  EXPECT_EQ(entry.at("order of convergence").get<double>(), 1.5);
+  EXPECT_EQ(entry.at("regularization error").get<double>(), 0.5);
+  EXPECT_EQ(entry.at("extrapolated value").get<double>(), 1230.);
+  EXPECT_EQ(json.at("accuracy").at("regularization check"), "made");
+  EXPECT_EQ(json.at("accuracy").at("target"), "none");
+  EXPECT_EQ(json.at("accuracy").at("meshes").at(0).at("design numbers").at("pressure drop inlet to outlet").get<double>(),
+            1234.5678901234567);
+  const auto lines = design_number_lines(summary.numbers);
+  EXPECT_NE(lines.at(0).find("+/- 3.5"), std::string::npos) << lines.at(0);
 }
 
 // The iteration totals of the numerics are the final mesh's; each mesh and each solve is listed.
