@@ -170,7 +170,9 @@ def log_limits(values):
 def draw_yield_overlay(case, view, axes, handles):
     """Unyielded (|tau| < tau_y) hatched with its outline, the |tau| = tau_y contour;
     with a dead-zone speed fraction, also the dead zone (unyielded or slow). |tau| is the
-    field stress_magnitude = eta gamma_dot = sqrt(tau:tau / 2)."""
+    field stress_magnitude = eta gamma_dot = sqrt(tau:tau / 2). Every region is a contour of
+    a continuous field, so its outline follows the fields between the mesh points instead of
+    running along whole cells."""
     from matplotlib.patches import Patch
     from matplotlib.lines import Line2D
     fields, drawn = case.fields, []
@@ -191,31 +193,51 @@ def draw_yield_overlay(case, view, axes, handles):
             handles.append(Line2D([], [], color="black", lw=1.4,
                                   label="yield surface (cavern outline): |tau| = tau_y"))
             drawn.append("cavern outline")
-    if case.dead_fraction is not None and fields.has("speed"):
-        # The case's definition: slower than the fraction of the impeller tip speed pi N D.
-        tip_speed = case.value("impeller tip speed")
-        speed = view.scalar(fields["speed"])
-        reference_speed = tip_speed if tip_speed else float(speed.max())
-        slow = (speed < case.dead_fraction * reference_speed).astype(float)
-        dead = slow
-        if case.yield_stress > 0. and fields.has("stress_magnitude"):
-            unyielded = (view.scalar(fields["stress_magnitude"]) < case.yield_stress).astype(float)
-            dead = numpy.maximum(slow, unyielded)
-            slow = slow * (1. - unyielded)  # dotted only where not hatched already
-        if dead.max() > 0.5:
-            if slow.max() > 0.5:
-                axes.tricontourf(view.triangulation, slow, levels=[0.5, 1.5], colors="none", hatches=["...."],
-                                 zorder=3)
-            axes.tricontour(view.triangulation, dead, levels=[0.5], colors="black", linewidths=1.0,
+    margins = dead_zone_margins(case, view)
+    if margins is not None:
+        dead, slow_yielded = margins
+        if dead.min() < 0.:
+            if slow_yielded.min() < 0.:
+                axes.tricontourf(view.triangulation, slow_yielded, levels=[slow_yielded.min() - 1., 0.],
+                                 colors="none", hatches=["...."], zorder=3)
+            axes.tricontour(view.triangulation, dead, levels=[0.], colors="black", linewidths=1.0,
                             linestyles="dashed", zorder=4)
+            tip_speed = case.value("impeller tip speed")
             handles.append(Line2D([], [], color="black", lw=1.0, ls="--",
                                   label="dead zone outline: unyielded or slower than %g of %s" % (
                                       case.dead_fraction, "the tip speed" if tip_speed else "the maximum speed")))
-            if slow.max() > 0.5:
+            if slow_yielded.min() < 0.:
                 handles.append(Patch(facecolor="none", hatch="....", edgecolor="black",
                                      label="dotted: yielded but slow (dead)"))
             drawn.append("dead zone")
     return drawn
+
+
+def dead_zone_margins(case, view):
+    """The dead zone as continuous fields on the view's points, or None when the case reports none:
+    (dead, slow_yielded), where dead = min(|tau|/tau_y - 1, |u|/(f U_ref) - 1) is negative in the dead
+    zone (unyielded or slower than the fraction f of U_ref; without a yield stress only the speed
+    term) and slow_yielded = max(|u|/(f U_ref) - 1, 1 - |tau|/tau_y) is negative where the fluid is
+    yielded but slow (the part of the dead zone not hatched as unyielded). U_ref is the impeller tip
+    speed pi N D (the case's definition), else the largest speed in the fields."""
+    fields = case.fields
+    if case.dead_fraction is None or not fields.has("speed"):
+        return None
+    tip_speed = case.value("impeller tip speed")
+    speed = view.scalar(fields["speed"])
+    threshold = case.dead_fraction * (tip_speed if tip_speed else float(speed.max()))
+    # Nothing is slower than a threshold of zero: the speed term then never makes the fluid dead.
+    slow = speed / threshold - 1. if threshold > 0. else None
+    yielded = None
+    if case.yield_stress > 0. and fields.has("stress_magnitude"):
+        yielded = view.scalar(fields["stress_magnitude"]) / case.yield_stress - 1.
+    if slow is None and yielded is None:
+        return None
+    if slow is None:
+        return yielded, numpy.ones_like(yielded)
+    if yielded is None:
+        return slow, slow
+    return numpy.minimum(yielded, slow), numpy.maximum(slow, -yielded)
 
 
 def draw_streamlines(view, axes, velocity):
