@@ -160,6 +160,19 @@ def _piece_files(folder):
     return pieces
 
 
+def _patches(n_points, quads):
+    """deal.II's DataOut writes each cell as a patch: n x n quadrilaterals on (n + 1)^2 points of
+    its own (n: the subdivisions of build_patches), patch after patch. The cell index of every
+    quadrilateral when a piece is laid out so, else None (points shared between cells)."""
+    for n in range(1, 17):
+        if len(quads) % (n * n) or n_points != len(quads) // (n * n) * (n + 1) ** 2:
+            continue
+        cells = numpy.arange(len(quads)) // (n * n)
+        if numpy.all(quads // (n + 1) ** 2 == cells[:, None]):
+            return cells
+    return None
+
+
 def _unique_edges(edges, n_points):
     """Edges (pairs of point indices, either order) once each, and how often each occurs."""
     pairs = numpy.sort(edges, axis=1).astype(numpy.int64)
@@ -233,10 +246,13 @@ def _conforming_triangles(points, quads):
 
 class Fields:
     """The fields of a case on one quadrilateral mesh with every point once
-    (points shared by neighbouring patches merged, their values averaged)."""
+    (points shared by neighbouring patches merged, their values averaged). When the files
+    hold one patch per cell (deal.II's DataOut), `cells` gives the cell of every
+    quadrilateral and `cell_edges` the edges of the cells (else both are None)."""
 
-    def __init__(self, points, quads, values):
+    def __init__(self, points, quads, values, cells=None, cell_edges=None):
         self.points, self.quads, self.values = points, quads, values
+        self.cells, self.cell_edges = cells, cell_edges
         self._triangles = self._triangle_quads = None
 
     def has(self, name):
@@ -244,6 +260,12 @@ class Fields:
 
     def __getitem__(self, name):
         return self.values[name]
+
+    def n_cells(self):
+        """The number of cells (None when the files do not say which quadrilaterals form a cell)."""
+        if self.cells is None:
+            return None
+        return int(self.cells.max()) + 1 if len(self.cells) else 0
 
     def triangles(self):
         """Two triangles per quadrilateral, edge to edge where the mesh has hanging points (see
@@ -273,9 +295,24 @@ def read_fields(folder):
     pieces = _piece_files(folder)
     if not pieces:
         return None
+    return read_pieces(pieces)
+
+
+def read_pieces(pieces):
+    """The .vtu files `pieces` (the pieces of one mesh, one per rank) as one Fields."""
     all_points, all_quads, all_values, offset = [], [], {}, 0
+    all_cells, outlines, n_cells = [], [], 0
     for path in pieces:
         points, quads, values = _read_piece(path)
+        cells = _patches(len(points), quads)
+        if cells is None or all_cells is None:
+            all_cells = None
+        else:
+            all_cells.append(cells + n_cells)
+            n_cells += int(cells[-1]) + 1 if len(cells) else 0
+            # The patches share no points in the file: the edges of a piece's quadrilaterals that no
+            # other one shares are the outlines of its cells (each cell edge in n pieces).
+            outlines.append(_single_edges(len(points), quads) + offset)
         all_points.append(points)
         all_quads.append(quads + offset)
         offset += len(points)
@@ -297,7 +334,12 @@ def read_fields(folder):
         else:
             merged[name] = numpy.stack([numpy.bincount(inverse, weights=value[:, c]) / counts
                                         for c in range(value.shape[1])], axis=1)
-    return Fields(points[first], inverse[quads], merged)
+    cells = cell_edges = None
+    if all_cells is not None:
+        cells = numpy.concatenate(all_cells)
+        # An edge between two cells comes once from each: kept once.
+        cell_edges = _unique_edges(inverse[numpy.concatenate(outlines)], len(first))[0]
+    return Fields(points[first], inverse[quads], merged, cells, cell_edges)
 
 
 def design_number_text(value):

@@ -18,6 +18,7 @@ class View:
         self.mirror = case.axisymmetric
         names = ("r", "z") if case.axisymmetric else ("x", "y")
         points, triangles = fields.points, fields.triangles()
+        self.triangle_quads = fields.triangle_quads()
         self.n = len(points)
         self.copy = None
         if self.mirror:
@@ -55,15 +56,37 @@ class View:
             size = max(numpy.ptp(fields.points[:, 0]), numpy.ptp(fields.points[:, 1]))
             on_axis = numpy.abs(fields.points[:, 0]) <= 1e-9 * size
             edges = edges[~(on_axis[edges[:, 0]] & on_axis[edges[:, 1]])]
-        outline = numpy.stack([fields.points[edges[:, 0]], fields.points[edges[:, 1]]], axis=1)
+        self.outline = self.segments(fields.points, edges)
+
+    def segments(self, points, edges):
+        """Edges between mesh points (pairs of indices) as line segments of the picture: mirrored
+        about the axis and laid on their side as the part is."""
+        lines = numpy.stack([points[edges[:, 0]], points[edges[:, 1]]], axis=1)
         if self.mirror:
-            outline = numpy.concatenate([outline, outline * [-1., 1.]])
-        self.outline = outline[:, :, ::-1] if self.transpose else outline
+            lines = numpy.concatenate([lines, lines * [-1., 1.]])
+        return lines[:, :, ::-1] if self.transpose else lines
+
+    def per_triangle(self, values):
+        """Values per quadrilateral of the mesh as values per triangle of the picture (each
+        quadrilateral is two triangles or more; the mirrored half repeats them)."""
+        values = numpy.asarray(values)[self.triangle_quads]
+        return numpy.concatenate([values, values]) if self.mirror else values
 
     def sample(self, values, pixels=520):
         """Values interpolated linearly onto a regular grid of about `pixels` along the
         longer side of the axes, masked outside the part (for imshow: quick and smooth)."""
         from matplotlib.tri import LinearTriInterpolator
+        self.make_grid(pixels)
+        return LinearTriInterpolator(self.triangulation, values, trifinder=self.trifinder())(*self.grid)
+
+    def sample_per_triangle(self, values, pixels=520):
+        """Values per triangle of the picture onto the same grid (constant in each triangle), masked
+        outside the part."""
+        self.make_grid(pixels)
+        triangle = self.trifinder()(*self.grid)
+        return numpy.ma.masked_array(numpy.asarray(values)[triangle], mask=triangle < 0)
+
+    def make_grid(self, pixels):
         if self.grid is None:
             long_side, short_side = pixels, max(60, int(pixels * min(self.axes_size) / max(self.axes_size)))
             n_x, n_y = (long_side, short_side) if self.axes_size[0] >= self.axes_size[1] else (short_side, long_side)
@@ -71,7 +94,6 @@ class View:
             y0, y1 = self.points[:, 1].min(), self.points[:, 1].max()
             self.grid = numpy.meshgrid(numpy.linspace(x0, x1, n_x), numpy.linspace(y0, y1, n_y))
             self.extent = (x0, x1, y0, y1)
-        return LinearTriInterpolator(self.triangulation, values, trifinder=self.trifinder())(*self.grid)
 
     def trifinder(self):
         if self.finder is None:
