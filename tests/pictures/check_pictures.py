@@ -6,11 +6,18 @@
       report shows exists, and report.html holds every design number of summary.json
       (name, symbol, value to its 6 printed digits, unit; the key ones also as cards at the
       top), every numerics entry, a row per mesh and per solve, the status, the caution
-      and the case cautions. --swirl-outline: also the swirl-speed picture with a cavern outline.
+      and the case cautions; the mesh picture's caption names as many cells as summary.json's
+      final mesh has. --swirl-outline: also the swirl-speed picture with a cavern outline.
+  check_pictures.py mesh FOLDER PREVIEW
+      The cell edges mesh.png draws (from FOLDER's fields, several patches per cell) are the
+      edges of the cells of `lentus mesh` for the same case (PREVIEW/mesh_cells.vtu, one
+      quadrilateral per cell): as many cells, the same total edge length, every cell corner
+      an end of a drawn edge.
   check_pictures.py browser FOLDER [--width PX] [--screenshot PNG]
       report.html in headless Chromium at PX (1280) px wide: no horizontal overflow, every
       design number's row and key card inside the window and visible, no name wrapped onto
-      more than two lines. Exit 77 (skipped) when chromium is not installed.
+      more than two lines, every picture loaded and inside the window. Exit 77 (skipped) when
+      chromium is not installed.
 The runs themselves are lentus_cli_test()s (tests/CMakeLists.txt).
 """
 import argparse
@@ -25,13 +32,16 @@ import tempfile
 
 SKIP = 77  # ctest's SKIP_RETURN_CODE of the browser checks
 
+# The drawing scripts' reader of case folders (the mesh check asks it which edges mesh.png draws).
+SCRIPTS = os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "..", "scripts")
+
 # Not blank: the variance of the grey levels (0..1) of a picture must be above a floor.
 # Floors (common practice: set from a measurement, not a published value): a white page
 # has 0; an empty set of axes with labels measured 0.008 here, with a colour bar 0.015;
 # drawn pictures measured 0.017-0.024 (line plots) and 0.04-0.12 (field maps).
 LINE_PLOT_FLOOR = 0.012
 FIELD_MAP_FLOOR = 0.025
-FIELD_MAPS = ("flow_map.png", "pressure.png", "shear_rate.png", "viscosity.png", "swirl_speed.png")
+FIELD_MAPS = ("flow_map.png", "pressure.png", "shear_rate.png", "viscosity.png", "swirl_speed.png", "mesh.png")
 
 
 def fail(message):
@@ -53,7 +63,7 @@ def expected_pictures(folder):
     names = ["flow_curve.png", "convergence.png"]
     pvtu = [name for name in os.listdir(folder) if name.endswith(".pvtu") or name.endswith(".vtu")]
     if pvtu:
-        names += ["flow_map.png", "pressure.png", "shear_rate.png"]
+        names += ["flow_map.png", "pressure.png", "shear_rate.png", "mesh.png"]
         with open(os.path.join(folder, sorted(pvtu)[0]), encoding="utf-8", errors="replace") as handle:
             head = handle.read(4000)
         if 'Name="swirl_velocity"' in head:
@@ -84,6 +94,16 @@ def check_folder(folder, swirl_outline):
         if not variance > floor:
             fail("%s looks blank: grey-level variance %.4f, floor %.4f" % (path, variance, floor))
         print("%-18s variance %.4f (floor %.3f)" % (name, variance, floor))
+
+    # The mesh picture is of the final mesh: its caption names summary.json's number of cells.
+    if "mesh.png" in shown:
+        caption = re.search(r'<img src="mesh.png"[^>]*><figcaption>(.*?)</figcaption>', report, re.S)
+        drawn = re.search(r"The final mesh: (\d+) cells", caption.group(1)) if caption else None
+        cells = summary.get("numerics", {}).get("cells")
+        if drawn is None or int(drawn.group(1)) != cells:
+            fail("mesh.png: the caption names %s cells, summary.json's final mesh has %s" % (
+                drawn.group(1) if drawn else "no number of", cells))
+        print("mesh.png draws the %d cells of the final mesh" % cells)
 
     # Every design number: its row holds the name, the symbol, the value to its 6 printed digits
     # and the unit; every key number also has its card at the top.
@@ -144,6 +164,38 @@ def check_folder(folder, swirl_outline):
             fail("the report does not mention the cavern outline")
 
 
+def check_mesh(folder, preview):
+    """The cell edges mesh.png draws against the cells of `lentus mesh` (one quadrilateral per cell)."""
+    import numpy
+    sys.path.insert(0, SCRIPTS)
+    import case_folder
+    fields = case_folder.read_fields(folder)
+    if fields is None or fields.cell_edges is None:
+        fail("%s: no fields, or the fields do not tell the cells apart" % folder)
+    cells = case_folder.read_pieces([os.path.join(preview, "mesh_cells.vtu")])
+    if fields.n_cells() != len(cells.quads):
+        fail("mesh.png draws %s cells, lentus mesh has %d" % (fields.n_cells(), len(cells.quads)))
+    # The preview's cell edges, each once, from its quadrilaterals.
+    edges = numpy.sort(numpy.concatenate([cells.quads[:, [i, (i + 1) % 4]] for i in range(4)]), axis=1)
+    edges = numpy.unique(edges, axis=0)
+
+    def length(points, pairs):
+        return float(numpy.linalg.norm(points[pairs[:, 0]] - points[pairs[:, 1]], axis=1).sum())
+    drawn, expected = length(fields.points, fields.cell_edges), length(cells.points, edges)
+    # Points are written in single precision: lengths agree to some 1e-7 relative.
+    if abs(drawn - expected) > 1e-5 * expected:
+        fail("mesh.png draws cell edges of total length %.9g m, the cells of lentus mesh have %.9g m" % (
+            drawn, expected))
+    size = max(numpy.ptp(cells.points[:, 0]), numpy.ptp(cells.points[:, 1]))
+    ends = {tuple(point) for point in numpy.round(fields.points[fields.cell_edges.reshape(-1)] / (1e-6 * size))}
+    corners = [tuple(point) for point in numpy.round(cells.points / (1e-6 * size))]
+    missing = sum(1 for corner in corners if corner not in ends)
+    if missing:
+        fail("%d of the %d cell corners of lentus mesh are no end of an edge mesh.png draws" % (missing, len(corners)))
+    print("mesh.png draws the %d cells of lentus mesh: %d edges, %.6g m of edges, every corner" % (
+        len(cells.quads), len(edges), drawn))
+
+
 # The layout check run in the page (headless Chromium): the page must not be wider than the window,
 # every design number's row (and key card) must lie inside the window and be visible, and no name may
 # wrap onto more than two lines. The verdict is written into the DOM as JSON for --dump-dom.
@@ -196,6 +248,15 @@ window.addEventListener("load", function () {
     if (lines(label) > 2) problems.push("'" + name + "' (" + where + "): the name wraps onto " + lines(label) +
                                         " lines");
     checked.push([where, name]);
+  });
+  document.querySelectorAll("figure img").forEach(function (image) {
+    var name = image.getAttribute("src");
+    if (!image.complete || image.naturalWidth === 0) problems.push("picture " + name + " did not load");
+    else {
+      var problem = visible(image, "picture " + name);
+      if (problem) problems.push(problem);
+    }
+    checked.push(["picture", name]);
   });
   var verdict = document.createElement("pre");
   verdict.id = "layout-verdict";
@@ -254,18 +315,20 @@ def check_browser(folder, width, screenshot):
     if not match:
         fail("the layout check did not run in Chromium (no verdict in the page)")
     verdict = json.loads(html.unescape(match.group(1)))
-    print("window %d px (%d px inside the scroll bar), page %d px wide; %d rows and cards checked" % (
+    print("window %d px (%d px inside the scroll bar), page %d px wide; %d rows, cards and pictures checked" % (
         width, verdict["width"], verdict["scrollWidth"], len(verdict["checked"])))
     rows = {name for where, name in verdict["checked"] if where == "row"}
     cards = {name for where, name in verdict["checked"] if where == "key card"}
+    pictures = {name for where, name in verdict["checked"] if where == "picture"}
     numbers = summary["design numbers"]
     missing = [name for name in numbers if name not in rows]
     missing += ["%s (key card)" % name for name, entry in numbers.items() if entry.get("key") and name not in cards]
+    missing += ["picture %s" % name for name in re.findall(r'<img src="([^"]+)"', page) if name not in pictures]
     problems = verdict["problems"] + ["'%s' is not in the page" % name for name in missing]
     if problems:
         fail("report.html at %d px:\n  %s" % (width, "\n  ".join(problems)))
-    print("%d design numbers (%d key) inside the %d px window and visible; no horizontal overflow" % (
-        len(rows), len(cards), verdict["width"]))
+    print("%d design numbers (%d key) and %d pictures inside the %d px window and visible; no horizontal overflow" % (
+        len(rows), len(cards), len(pictures), verdict["width"]))
 
 
 def main():
@@ -274,6 +337,9 @@ def main():
     folder = commands.add_parser("folder")
     folder.add_argument("folder")
     folder.add_argument("--swirl-outline", action="store_true")
+    mesh = commands.add_parser("mesh")
+    mesh.add_argument("folder")
+    mesh.add_argument("preview")
     browser = commands.add_parser("browser")
     browser.add_argument("folder")
     browser.add_argument("--width", type=int, default=1280)
@@ -281,6 +347,8 @@ def main():
     arguments = parser.parse_args()
     if arguments.command == "folder":
         check_folder(arguments.folder, arguments.swirl_outline)
+    elif arguments.command == "mesh":
+        check_mesh(arguments.folder, arguments.preview)
     else:
         check_browser(arguments.folder, arguments.width, arguments.screenshot)
     print("passed")
