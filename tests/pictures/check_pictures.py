@@ -13,6 +13,12 @@
       edges of the cells of `lentus mesh` for the same case (PREVIEW/mesh_cells.vtu, one
       quadrilateral per cell): as many cells, the same total edge length, every cell corner
       an end of a drawn edge.
+  check_pictures.py hanging WORK
+      A mesh with hanging points (cells next to finer ones, as adaptive refinement leaves
+      them), written into WORK as DataOut lays out its patches (2 x 2 per cell, points of
+      their own): the triangles of the pictures meet edge to edge, cover the part once and
+      matplotlib's triangle finder takes them; the outline is the boundary alone; the mesh
+      picture's edges are the cells' edges; mesh.png and pressure.png are drawn.
   check_pictures.py browser FOLDER [--width PX] [--screenshot PNG]
       report.html in headless Chromium at PX (1280) px wide: no horizontal overflow, every
       design number's row and key card inside the window and visible, no name wrapped onto
@@ -196,6 +202,134 @@ def check_mesh(folder, preview):
         len(cells.quads), len(edges), drawn))
 
 
+# The mesh of the hanging-point check: 2 x 2 unit cells on [0, 2]^2; the lower left and the upper right
+# refined once, the upper right child of the upper right again: 2 + 4 + 3 + 4 = 13 cells. The upper left
+# cell has finer neighbours on two sides, so one of its triangles has hanging points on two edges.
+def hanging_cells():
+    def split(x, y, size):
+        half = size / 2.
+        return [(x, y, half), (x + half, y, half), (x, y + half, half), (x + half, y + half, half)]
+    lower_left, upper_right = split(0., 0., 1.), split(1., 1., 1.)
+    return [(1., 0., 1.), (0., 1., 1.)] + lower_left + upper_right[:3] + split(1.5, 1.5, .5)
+
+
+def write_patches(path, cells, subdivisions):
+    """An ASCII .vtu of square cells (x, y, size) laid out as deal.II's DataOut writes patches: per
+    cell (n + 1)^2 points of its own, x running fastest, then n^2 quadrilaterals; a field
+    pressure = x + 2 y."""
+    n = subdivisions
+    points, quads = [], []
+    for x, y, size in cells:
+        base = len(points)
+        points += [(x + size * i / n, y + size * j / n) for j in range(n + 1) for i in range(n + 1)]
+        quads += [(base + j * (n + 1) + i, base + j * (n + 1) + i + 1, base + (j + 1) * (n + 1) + i + 1,
+                   base + (j + 1) * (n + 1) + i) for j in range(n) for i in range(n)]
+    text = " ".join
+    with open(path, "w", encoding="utf-8") as handle:
+        handle.write('<?xml version="1.0"?>\n'
+                     '<VTKFile type="UnstructuredGrid" version="0.1" byte_order="LittleEndian">\n'
+                     '<UnstructuredGrid><Piece NumberOfPoints="%d" NumberOfCells="%d">\n' % (len(points), len(quads)))
+        handle.write('<Points><DataArray type="Float64" NumberOfComponents="3" format="ascii">%s</DataArray>'
+                     '</Points>\n' % text("%r %r 0" % point for point in points))
+        handle.write('<Cells><DataArray type="Int32" Name="connectivity" format="ascii">%s</DataArray>\n'
+                     '<DataArray type="Int32" Name="offsets" format="ascii">%s</DataArray>\n'
+                     '<DataArray type="UInt8" Name="types" format="ascii">%s</DataArray></Cells>\n' % (
+                         text("%d %d %d %d" % quad for quad in quads),
+                         text(str(4 * (k + 1)) for k in range(len(quads))), text("9" for quad in quads)))
+        handle.write('<PointData><DataArray type="Float64" Name="pressure" format="ascii">%s</DataArray></PointData>\n'
+                     '</Piece></UnstructuredGrid></VTKFile>\n' % text("%r" % (x + 2. * y) for x, y in points))
+
+
+def check_hanging(work):
+    """Pictures of a mesh with hanging points (hanging_cells)."""
+    import numpy
+    sys.path.insert(0, SCRIPTS)
+    import matplotlib
+    matplotlib.use("Agg")
+    from matplotlib.tri import Triangulation
+    import case_folder
+    import draw_case
+    from case_view import View
+    cells = hanging_cells()
+    folder = os.path.join(work, "hanging_mesh")
+    os.makedirs(folder, exist_ok=True)
+    write_patches(os.path.join(folder, "fields_00.0.vtu"), cells, 2)
+    with open(os.path.join(folder, "fields.pvd"), "w", encoding="utf-8") as handle:
+        handle.write('<?xml version="1.0"?>\n<VTKFile type="Collection" version="0.1"><Collection>'
+                     '<DataSet timestep="0" part="0" file="fields_00.0.vtu"/></Collection></VTKFile>\n')
+    with open(os.path.join(folder, "summary.json"), "w", encoding="utf-8") as handle:
+        json.dump({"velocity components": "x y", "design numbers": {}}, handle)
+    fields = case_folder.read_fields(folder)
+    points = fields.points
+    if fields.n_cells() != len(cells):
+        fail("hanging points: %s cells read, %d written" % (fields.n_cells(), len(cells)))
+
+    # The triangles: one sense of rotation, the area of the part (4 m^2) once, every edge inside the
+    # part shared by exactly two triangles (edge to edge), and matplotlib's triangle finder takes them.
+    triangles = fields.triangles()
+    corner = points[triangles]
+    signed = 0.5 * ((corner[:, 1, 0] - corner[:, 0, 0]) * (corner[:, 2, 1] - corner[:, 0, 1]) -
+                    (corner[:, 2, 0] - corner[:, 0, 0]) * (corner[:, 1, 1] - corner[:, 0, 1]))
+    if not (numpy.all(signed > 0.) or numpy.all(signed < 0.)):
+        fail("hanging points: the triangles do not all turn the same way")
+    if abs(numpy.abs(signed).sum() - 4.) > 1e-12:
+        fail("hanging points: the triangles cover %.15g m^2 of a part of 4 m^2" % numpy.abs(signed).sum())
+    edges = numpy.sort(numpy.concatenate([triangles[:, [0, 1]], triangles[:, [1, 2]], triangles[:, [2, 0]]]), axis=1)
+    edges, counts = numpy.unique(edges, axis=0, return_counts=True)
+    middle = 0.5 * (points[edges[:, 0]] + points[edges[:, 1]])
+    on_boundary = numpy.any((numpy.abs(middle) < 1e-12) | (numpy.abs(middle - 2.) < 1e-12), axis=1)
+    if numpy.any(counts[~on_boundary] != 2) or numpy.any(counts[on_boundary] != 1):
+        fail("hanging points: %d triangle edges inside the part are not shared by two triangles" % numpy.sum(
+            counts[~on_boundary] != 2))
+    Triangulation(points[:, 0], points[:, 1], triangles).get_trifinder()
+
+    # The outline: the boundary of the part alone, its whole length 8 m.
+    outline = fields.boundary_edges()
+    middle = 0.5 * (points[outline[:, 0]] + points[outline[:, 1]])
+    if not numpy.all(numpy.any((numpy.abs(middle) < 1e-12) | (numpy.abs(middle - 2.) < 1e-12), axis=1)):
+        fail("hanging points: the outline has edges inside the part")
+    length = float(numpy.linalg.norm(points[outline[:, 0]] - points[outline[:, 1]], axis=1).sum())
+    if abs(length - 8.) > 1e-12:
+        fail("hanging points: the outline is %.15g m long, the boundary 8 m" % length)
+
+    # The cell edges: every drawn edge lies on the outline of a cell and inside none; every cell's
+    # outline is drawn all round (its perimeter covered by drawn edges lying on it).
+    drawn = fields.cell_edges
+    start, end = points[drawn[:, 0]], points[drawn[:, 1]]
+    middle = 0.5 * (start + end)
+    for x, y, size in cells:
+        inside = ((middle[:, 0] > x + 1e-12) & (middle[:, 0] < x + size - 1e-12) & (middle[:, 1] > y + 1e-12) &
+                  (middle[:, 1] < y + size - 1e-12))
+        if numpy.any(inside):
+            fail("hanging points: an edge is drawn through the cell at (%g, %g)" % (x, y))
+        along = numpy.zeros(len(drawn), dtype=bool)
+        for coordinate, value, low, high in ((0, x, y, y + size), (0, x + size, y, y + size), (1, y, x, x + size),
+                                            (1, y + size, x, x + size)):
+            other = 1 - coordinate
+            along |= ((numpy.abs(start[:, coordinate] - value) < 1e-12)
+                      & (numpy.abs(end[:, coordinate] - value) < 1e-12)
+                      & (numpy.minimum(start[:, other], end[:, other]) >= low - 1e-12)
+                      & (numpy.maximum(start[:, other], end[:, other]) <= high + 1e-12))
+        covered = float(numpy.linalg.norm(end[along] - start[along], axis=1).sum())
+        if covered < 4. * size - 1e-12:
+            fail("hanging points: %.6g m of the %.6g m outline of the cell at (%g, %g) drawn" % (
+                covered, 4. * size, x, y))
+
+    # The pictures themselves.
+    case = draw_case.Case(folder)
+    view = View(case)
+    caption = draw_case.picture_mesh(case, view, os.path.join(folder, "mesh.png"))
+    draw_case.picture_pressure(case, view, os.path.join(folder, "pressure.png"))
+    if ("The final mesh: %d cells" % len(cells)) not in caption or "black lines: the cell edges" not in caption:
+        fail("hanging points: mesh.png's caption: %s" % caption)
+    for name in ("mesh.png", "pressure.png"):
+        variance = grey_variance(os.path.join(folder, name))
+        if not variance > FIELD_MAP_FLOOR:
+            fail("hanging points: %s looks blank: grey-level variance %.4f" % (name, variance))
+    print("hanging points: %d cells, %d triangles edge to edge, outline 8 m, cell edges all round; mesh.png and "
+          "pressure.png drawn" % (len(cells), len(triangles)))
+
+
 # The layout check run in the page (headless Chromium): the page must not be wider than the window,
 # every design number's row (and key card) must lie inside the window and be visible, and no name may
 # wrap onto more than two lines. The verdict is written into the DOM as JSON for --dump-dom.
@@ -340,6 +474,8 @@ def main():
     mesh = commands.add_parser("mesh")
     mesh.add_argument("folder")
     mesh.add_argument("preview")
+    hanging = commands.add_parser("hanging")
+    hanging.add_argument("work")
     browser = commands.add_parser("browser")
     browser.add_argument("folder")
     browser.add_argument("--width", type=int, default=1280)
@@ -349,6 +485,8 @@ def main():
         check_folder(arguments.folder, arguments.swirl_outline)
     elif arguments.command == "mesh":
         check_mesh(arguments.folder, arguments.preview)
+    elif arguments.command == "hanging":
+        check_hanging(arguments.work)
     else:
         check_browser(arguments.folder, arguments.width, arguments.screenshot)
     print("passed")
