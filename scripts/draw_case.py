@@ -165,6 +165,7 @@ def picture_viscosity(case, view, path):
 def picture_mesh(case, view, path):
     from matplotlib.collections import LineCollection
     from matplotlib.colors import LogNorm, Normalize
+    from matplotlib.ticker import LogFormatterSciNotation, LogLocator
     fields = case.fields
     n_cells = fields.n_cells()
     if n_cells is None:
@@ -186,9 +187,12 @@ def picture_mesh(case, view, path):
     if not edges_drawn:
         title += "\n(edges not drawn: %s)" % ("the cells are too small" if not visible else "too many cells")
     figure, axes = view.figure(title)
-    # A log scale when the sizes differ by more than a factor 2; cells of (nearly) one size get a
-    # linear bar of some width around it.
-    norm = LogNorm(vmin=low, vmax=high) if high > 2. * low else Normalize(vmin=0.9 * low, vmax=1.1 * high)
+    # A log scale when the sizes span more than a factor 10, else linear (a log bar over less than a
+    # decade labels its ticks poorly); cells of (nearly) one size get a bar of some width around it.
+    if high > 10. * low:
+        norm = LogNorm(vmin=low, vmax=high)
+    else:
+        norm = Normalize(vmin=low, vmax=high) if high > 1.1 * low else Normalize(vmin=0.9 * low, vmax=1.1 * high)
     values = view.sample_per_triangle(view.per_triangle(size[fields.cells]))
     mappable = axes.imshow(values, origin="lower", extent=view.extent, interpolation="nearest", cmap="cividis",
                            norm=norm, alpha=0.6, aspect="equal" if view.to_scale else "auto", zorder=1)
@@ -196,7 +200,11 @@ def picture_mesh(case, view, path):
         axes.add_collection(LineCollection(view.segments(fields.points, fields.cell_edges), colors="black",
                                            linewidths=0.5 if low * pixels_per_metre >= 8. else 0.25, zorder=5))
     axes.add_collection(LineCollection(view.outline, colors="black", linewidths=0.8, zorder=6))
-    view.colorbar(figure, axes, mappable, "cell size sqrt(area) [m]")
+    bar = view.colorbar(figure, axes, mappable, "cell size sqrt(area) [m]")
+    if isinstance(norm, LogNorm) and numpy.floor(numpy.log10(high)) - numpy.ceil(numpy.log10(low)) < 1.:
+        # One power of 10 on the bar: 2 and 5 times the powers labelled too.
+        bar.minorlocator = LogLocator(subs=(2., 5.))
+        bar.minorformatter = LogFormatterSciNotation(labelOnlyBase=False, minor_thresholds=(numpy.inf, numpy.inf))
     save(figure, path)
     caption = "The final mesh: %d cells, the ones the design numbers come from; " % n_cells
     if edges_drawn:
