@@ -18,6 +18,7 @@ class View:
         self.mirror = case.axisymmetric
         names = ("r", "z") if case.axisymmetric else ("x", "y")
         points, triangles = fields.points, fields.triangles()
+        self.triangle_quads = fields.triangle_quads()
         self.n = len(points)
         self.copy = None
         if self.mirror:
@@ -55,15 +56,37 @@ class View:
             size = max(numpy.ptp(fields.points[:, 0]), numpy.ptp(fields.points[:, 1]))
             on_axis = numpy.abs(fields.points[:, 0]) <= 1e-9 * size
             edges = edges[~(on_axis[edges[:, 0]] & on_axis[edges[:, 1]])]
-        outline = numpy.stack([fields.points[edges[:, 0]], fields.points[edges[:, 1]]], axis=1)
+        self.outline = self.segments(fields.points, edges)
+
+    def segments(self, points, edges):
+        """Edges between mesh points (pairs of indices) as line segments of the picture: mirrored
+        about the axis and laid on their side as the part is."""
+        lines = numpy.stack([points[edges[:, 0]], points[edges[:, 1]]], axis=1)
         if self.mirror:
-            outline = numpy.concatenate([outline, outline * [-1., 1.]])
-        self.outline = outline[:, :, ::-1] if self.transpose else outline
+            lines = numpy.concatenate([lines, lines * [-1., 1.]])
+        return lines[:, :, ::-1] if self.transpose else lines
+
+    def per_triangle(self, values):
+        """Values per quadrilateral of the mesh as values per triangle of the picture (each
+        quadrilateral is two triangles or more; the mirrored half repeats them)."""
+        values = numpy.asarray(values)[self.triangle_quads]
+        return numpy.concatenate([values, values]) if self.mirror else values
 
     def sample(self, values, pixels=520):
         """Values interpolated linearly onto a regular grid of about `pixels` along the
         longer side of the axes, masked outside the part (for imshow: quick and smooth)."""
         from matplotlib.tri import LinearTriInterpolator
+        self.make_grid(pixels)
+        return LinearTriInterpolator(self.triangulation, values, trifinder=self.trifinder())(*self.grid)
+
+    def sample_per_triangle(self, values, pixels=520):
+        """Values per triangle of the picture onto the same grid (constant in each triangle), masked
+        outside the part."""
+        self.make_grid(pixels)
+        triangle = self.trifinder()(*self.grid)
+        return numpy.ma.masked_array(numpy.asarray(values)[triangle], mask=triangle < 0)
+
+    def make_grid(self, pixels):
         if self.grid is None:
             long_side, short_side = pixels, max(60, int(pixels * min(self.axes_size) / max(self.axes_size)))
             n_x, n_y = (long_side, short_side) if self.axes_size[0] >= self.axes_size[1] else (short_side, long_side)
@@ -71,7 +94,6 @@ class View:
             y0, y1 = self.points[:, 1].min(), self.points[:, 1].max()
             self.grid = numpy.meshgrid(numpy.linspace(x0, x1, n_x), numpy.linspace(y0, y1, n_y))
             self.extent = (x0, x1, y0, y1)
-        return LinearTriInterpolator(self.triangulation, values, trifinder=self.trifinder())(*self.grid)
 
     def trifinder(self):
         if self.finder is None:
@@ -170,7 +192,9 @@ def log_limits(values):
 def draw_yield_overlay(case, view, axes, handles):
     """Unyielded (|tau| < tau_y) hatched with its outline, the |tau| = tau_y contour;
     with a dead-zone speed fraction, also the dead zone (unyielded or slow). |tau| is the
-    field stress_magnitude = eta gamma_dot = sqrt(tau:tau / 2)."""
+    field stress_magnitude = eta gamma_dot = sqrt(tau:tau / 2). Every region is a contour of
+    a continuous field, so its outline follows the fields between the mesh points instead of
+    running along whole cells."""
     from matplotlib.patches import Patch
     from matplotlib.lines import Line2D
     fields, drawn = case.fields, []
@@ -191,31 +215,51 @@ def draw_yield_overlay(case, view, axes, handles):
             handles.append(Line2D([], [], color="black", lw=1.4,
                                   label="yield surface (cavern outline): |tau| = tau_y"))
             drawn.append("cavern outline")
-    if case.dead_fraction is not None and fields.has("speed"):
-        # The case's definition: slower than the fraction of the impeller tip speed pi N D.
-        tip_speed = case.value("impeller tip speed")
-        speed = view.scalar(fields["speed"])
-        reference_speed = tip_speed if tip_speed else float(speed.max())
-        slow = (speed < case.dead_fraction * reference_speed).astype(float)
-        dead = slow
-        if case.yield_stress > 0. and fields.has("stress_magnitude"):
-            unyielded = (view.scalar(fields["stress_magnitude"]) < case.yield_stress).astype(float)
-            dead = numpy.maximum(slow, unyielded)
-            slow = slow * (1. - unyielded)  # dotted only where not hatched already
-        if dead.max() > 0.5:
-            if slow.max() > 0.5:
-                axes.tricontourf(view.triangulation, slow, levels=[0.5, 1.5], colors="none", hatches=["...."],
-                                 zorder=3)
-            axes.tricontour(view.triangulation, dead, levels=[0.5], colors="black", linewidths=1.0,
+    margins = dead_zone_margins(case, view)
+    if margins is not None:
+        dead, slow_yielded = margins
+        if dead.min() < 0.:
+            if slow_yielded.min() < 0.:
+                axes.tricontourf(view.triangulation, slow_yielded, levels=[slow_yielded.min() - 1., 0.],
+                                 colors="none", hatches=["...."], zorder=3)
+            axes.tricontour(view.triangulation, dead, levels=[0.], colors="black", linewidths=1.0,
                             linestyles="dashed", zorder=4)
+            tip_speed = case.value("impeller tip speed")
             handles.append(Line2D([], [], color="black", lw=1.0, ls="--",
                                   label="dead zone outline: unyielded or slower than %g of %s" % (
                                       case.dead_fraction, "the tip speed" if tip_speed else "the maximum speed")))
-            if slow.max() > 0.5:
+            if slow_yielded.min() < 0.:
                 handles.append(Patch(facecolor="none", hatch="....", edgecolor="black",
                                      label="dotted: yielded but slow (dead)"))
             drawn.append("dead zone")
     return drawn
+
+
+def dead_zone_margins(case, view):
+    """The dead zone as continuous fields on the view's points, or None when the case reports none:
+    (dead, slow_yielded), where dead = min(|tau|/tau_y - 1, |u|/(f U_ref) - 1) is negative in the dead
+    zone (unyielded or slower than the fraction f of U_ref; without a yield stress only the speed
+    term) and slow_yielded = max(|u|/(f U_ref) - 1, 1 - |tau|/tau_y) is negative where the fluid is
+    yielded but slow (the part of the dead zone not hatched as unyielded). U_ref is the impeller tip
+    speed pi N D (the case's definition), else the largest speed in the fields."""
+    fields = case.fields
+    if case.dead_fraction is None or not fields.has("speed"):
+        return None
+    tip_speed = case.value("impeller tip speed")
+    speed = view.scalar(fields["speed"])
+    threshold = case.dead_fraction * (tip_speed if tip_speed else float(speed.max()))
+    # Nothing is slower than a threshold of zero: the speed term then never makes the fluid dead.
+    slow = speed / threshold - 1. if threshold > 0. else None
+    yielded = None
+    if case.yield_stress > 0. and fields.has("stress_magnitude"):
+        yielded = view.scalar(fields["stress_magnitude"]) / case.yield_stress - 1.
+    if slow is None and yielded is None:
+        return None
+    if slow is None:
+        return yielded, numpy.ones_like(yielded)
+    if yielded is None:
+        return slow, slow
+    return numpy.minimum(yielded, slow), numpy.maximum(slow, -yielded)
 
 
 def draw_streamlines(view, axes, velocity):

@@ -11,6 +11,7 @@ Writes into FOLDER (each file complete or not at all):
   swirl_speed.png   swirl speed |u_theta| and the cavern outline (swirling cases)
   die_profiles.png  pressure along the axis or centreline and wall shear stress along the wall
                     (cases with exit_profile.csv: dies and pipes)
+  mesh.png          the cell edges of the final mesh, coloured by cell size: where it is fine
   flow_curve.png    the fluid's flow curve, the shear rates that occur in the case shaded
   convergence.png   residual and step length against nonlinear iteration (summary.json's solves)
   report.html       the cautions, the key design numbers, every design number with its symbol
@@ -44,6 +45,9 @@ INSTALL_HINT = ("pictures need Python 3 with matplotlib: run scripts/setup, or "
 # and the shear rates that mark the flow curve (true wall shear rates, the Metzner-Otto rate).
 WALL_STRESS_SYMBOLS = ("tau_w", "tau_w,i", "tau_w,o")
 SHEAR_RATE_SYMBOLS = ("gamma_w", "gamma_MO")
+
+# The mesh picture draws the cell edges of meshes up to this many cells (about 5 s of drawing).
+MESH_EDGES_UP_TO = 100000
 
 
 class Case:
@@ -156,6 +160,60 @@ def picture_viscosity(case, view, path):
     picture_scalar(case, view, path, "viscosity", "Viscosity (log colour scale)", "viscosity [Pa s]", "cividis",
                    True)
     return "Viscosity on a log colour scale (the lowest 1% of the values drawn in the lowest colour)"
+
+
+def picture_mesh(case, view, path):
+    from matplotlib.collections import LineCollection
+    from matplotlib.colors import LogNorm, Normalize
+    from matplotlib.ticker import LogFormatterSciNotation, LogLocator
+    fields = case.fields
+    n_cells = fields.n_cells()
+    if n_cells is None:
+        raise ValueError("the field files do not hold one patch per cell: the cell edges are not known")
+    # The size of a cell: the square root of its area in the section (the sum of its quadrilaterals').
+    corners = fields.points[fields.quads]
+    x, y = corners[..., 0], corners[..., 1]
+    area = 0.5 * numpy.abs(numpy.sum(x * numpy.roll(y, -1, axis=1) - numpy.roll(x, -1, axis=1) * y, axis=1))
+    size = numpy.sqrt(numpy.bincount(fields.cells, weights=area))
+    low, high = float(size.min()), float(size.max())
+    # The cell edges, unless most of the part would turn black: cells under 2 pixels wide (110 dpi, as
+    # View.figure) covering more than half of it; thin lines where the smallest cells are a few pixels
+    # wide (they blacken that part, which shows it is fine). Lines cost about 0.5 s per 10000 cells.
+    pixels_per_metre = 110. * min(view.axes_size[0] / max(view.width, 1e-300),
+                                  view.axes_size[1] / max(view.height, 1e-300))
+    visible = numpy.sum(size[size * pixels_per_metre >= 2.] ** 2) >= 0.5 * numpy.sum(size ** 2)
+    edges_drawn = visible and n_cells <= MESH_EDGES_UP_TO
+    title = "Final mesh: %d cells (colour: cell size)" % n_cells
+    if not edges_drawn:
+        title += "\n(edges not drawn: %s)" % ("the cells are too small" if not visible else "too many cells")
+    figure, axes = view.figure(title)
+    # A log scale when the sizes span more than a factor 10, else linear (a log bar over less than a
+    # decade labels its ticks poorly); cells of (nearly) one size get a bar of some width around it.
+    if high > 10. * low:
+        norm = LogNorm(vmin=low, vmax=high)
+    else:
+        norm = Normalize(vmin=low, vmax=high) if high > 1.1 * low else Normalize(vmin=0.9 * low, vmax=1.1 * high)
+    values = view.sample_per_triangle(view.per_triangle(size[fields.cells]))
+    mappable = axes.imshow(values, origin="lower", extent=view.extent, interpolation="nearest", cmap="cividis",
+                           norm=norm, alpha=0.6, aspect="equal" if view.to_scale else "auto", zorder=1)
+    if edges_drawn:
+        axes.add_collection(LineCollection(view.segments(fields.points, fields.cell_edges), colors="black",
+                                           linewidths=0.5 if low * pixels_per_metre >= 8. else 0.25, zorder=5))
+    axes.add_collection(LineCollection(view.outline, colors="black", linewidths=0.8, zorder=6))
+    bar = view.colorbar(figure, axes, mappable, "cell size sqrt(area) [m]")
+    if isinstance(norm, LogNorm) and numpy.floor(numpy.log10(high)) - numpy.ceil(numpy.log10(low)) < 1.:
+        # One power of 10 on the bar: 2 and 5 times the powers labelled too.
+        bar.minorlocator = LogLocator(subs=(2., 5.))
+        bar.minorformatter = LogFormatterSciNotation(labelOnlyBase=False, minor_thresholds=(numpy.inf, numpy.inf))
+    save(figure, path)
+    caption = "The final mesh: %d cells, the ones the design numbers come from; " % n_cells
+    if edges_drawn:
+        caption += "black lines: the cell edges; "
+    elif not visible:
+        caption += "the cells are too small at this size to draw their edges; "
+    else:
+        caption += "the cell edges are not drawn above %d cells; " % MESH_EDGES_UP_TO
+    return caption + "colour: the cell size sqrt(area) (%.3g to %.3g m)" % (low, high)
 
 
 def die_lines(case):
@@ -386,6 +444,7 @@ def draw_all(case):
             attempt("viscosity.png", "Viscosity", picture_viscosity, case, view)
         if case.exit_profile is not None:
             attempt("die_profiles.png", "Along the die", picture_die_profiles, case)
+        attempt("mesh.png", "Mesh", picture_mesh, case, view)
     attempt("flow_curve.png", "Flow curve", picture_flow_curve, case)
     attempt("convergence.png", "Convergence", picture_convergence, case)
     return pictures, failures
