@@ -44,7 +44,7 @@ reason, design numbers with units, Newton iterations, wall time, and the caution
 row), plan.txt, plot.png. A sweep over a fitted fluid's samples (`fluid samples = fitted`, as
 in the samples.sweep of lentus fit) adds fluid_uncertainty.csv and .jsonl: each design number's
 value in the fitted case, its error bar, and its 2.5-97.5% span over the samples (the
-uncertainty from the fluid), printed at the end.
+uncertainty from the fluid), printed at the end and drawn in fluid_uncertainty.png.
 Started again on the same folder, a sweep keeps finished cases and runs the others.
 Exit codes: 0 every case has its row (failed ones included), 2 bad sweep file;
 array mode: the case's own code (0, 2, 3; 1 crashed).

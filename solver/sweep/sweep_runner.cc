@@ -410,6 +410,23 @@ namespace lentus::sweep
         print_line("Missing " + std::to_string(report.missing.size()) + " case(s) without a result: " + list +
                    " (run them with lentus sweep, or --case-index I)");
       }
+    if (!report.fluid_plot_numbers.empty())
+      {
+        const std::string picture = (fs::path(plan.results_folder) / "fluid_uncertainty.png").string();
+        if (!report::plotting_available())
+          print_line("No picture of the fluid's uncertainty: " + report::plotting_install_hint());
+        else
+          {
+            std::vector<std::string> arguments = {report.csv_path, "--fluid", report.fluid_csv_path, "--output",
+                                                  picture};
+            for (const std::string &number : report.fluid_plot_numbers)
+              arguments.insert(arguments.end(), {"--number", number});
+            if (report::run_script("plot_sweep.py", arguments) == 0)
+              print_line("Plot of the fluid's uncertainty: " + picture);
+            else
+              print_line("No picture of the fluid's uncertainty: scripts/plot_sweep.py failed (see above)");
+          }
+      }
     if (!plan.plot_number.empty() && report.rows > 0)
       {
         const std::string picture = (fs::path(plan.results_folder) / "plot.png").string();
