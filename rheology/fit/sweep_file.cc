@@ -115,7 +115,8 @@ namespace lentus::rheology::fit
     if (diagonal_only)
       text << "# Warning: the covariance is singular; correlations were dropped.\n";
 
-    const LawInfo &info = registry().find(fit.law);
+    const LawInfo     &info = registry().find(fit.law);
+    std::ostringstream cases;
     auto write_case = [&](const std::string &name, const std::vector<double> &values) {
       // Check that the law accepts the sample before writing it.
       ParameterValues law_values = fit.law_values;
@@ -128,19 +129,20 @@ namespace lentus::rheology::fit
         }
       catch (const InvalidParameter &error)
         {
-          text << "# case " << name << " left out: " << error.what() << "\n";
-          return;
+          cases << "# case " << name << " left out: " << error.what() << "\n";
+          return false;
         }
-      text << "case " << name << "\n";
+      cases << "case " << name << "\n";
       for (std::size_t i = 0; i < fit.estimates.size(); ++i)
-        text << "  " << fit.estimates[i].path << " = " << number(values[i]) << "\n";
-      text << "end\n";
+        cases << "  " << fit.estimates[i].path << " = " << number(values[i]) << "\n";
+      cases << "end\n";
+      return true;
     };
 
     std::vector<double> estimates;
     for (const Estimate &estimate : fit.estimates)
       estimates.push_back(estimate.value);
-    write_case("fitted", estimates);
+    const bool fitted  = write_case("fitted", estimates);
     const auto sampled = latin_hypercube_samples(fit, samples, seed);
     for (std::size_t k = 0; k < sampled.size(); ++k)
       {
@@ -148,6 +150,13 @@ namespace lentus::rheology::fit
         std::snprintf(name, sizeof name, "sample-%03zu", k + 1);
         write_case(name, sampled[k]);
       }
-    return text.str();
+    // The mark that makes a sweep state each design number's spread over the samples beside its
+    // value in the fitted case (solver/sweep/fluid_uncertainty.h).
+    if (fitted)
+      text << "# `fluid samples = fitted`: the cases sample the fluid's parameters and case `fitted` holds the\n"
+           << "# estimates; the sweep then writes fluid_uncertainty.csv: each design number's value in the\n"
+           << "# fitted case and its 2.5-97.5% span over the samples.\n"
+           << "fluid samples = fitted\n";
+    return text.str() + cases.str();
   }
 } // namespace lentus::rheology::fit

@@ -4,11 +4,14 @@
 //
 // Format (version 1), read by the sweep runner:
 //   # comments
+//   fluid samples = fitted                (the cases sample a fluid; `fitted` holds the estimates)
 //   case NAME
 //     Section/Subsection/Key = value      (one override, as `--set` takes it)
 //   end
 // Each case is the base case (the Rheology section `lentus fit` writes) with
-// the listed values replaced. The first case, "fitted", holds the estimates.
+// the listed values replaced. The first case, "fitted", holds the estimates; the
+// `fluid samples` line makes a sweep state each design number's spread over the
+// samples (fluid_uncertainty.csv). It is left out if the fitted case is.
 #pragma once
 
 #include "rheology/fit/law_fit.h"

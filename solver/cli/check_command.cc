@@ -39,6 +39,10 @@ namespace lentus::cli
                 << ") of base case " << plan.base_case << "\n  varied:";
       for (const std::string &key : plan.varied_keys)
         std::cout << (&key == &plan.varied_keys.front() ? " " : "; ") << key;
+      if (plan.fluid_samples)
+        std::cout << "\n  fluid samples: case " << plan.fluid_samples->fitted
+                  << " holds the fit's estimates; the sweep would state each design number's spread over the "
+                     "other cases in fluid_uncertainty.csv";
       std::cout << "\n  results would go to " << plan.results_folder << '\n';
       return 0;
     }

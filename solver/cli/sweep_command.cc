@@ -41,7 +41,10 @@ runs; every case is validated first (an invalid one is recorded as bad input).
 Results folder: cases/<case id>/ (each case's own results), rows/<case id>.txt (its line of
 the table, written whole), results.csv and results.jsonl (case, varied values, status,
 reason, design numbers with units, Newton iterations, wall time, and the caution on every
-row), plan.txt, plot.png.
+row), plan.txt, plot.png. A sweep over a fitted fluid's samples (`fluid samples = fitted`, as
+in the samples.sweep of lentus fit) adds fluid_uncertainty.csv and .jsonl: each design number's
+value in the fitted case, its error bar, and its 2.5-97.5% span over the samples (the
+uncertainty from the fluid), printed at the end and drawn in fluid_uncertainty.png.
 Started again on the same folder, a sweep keeps finished cases and runs the others.
 Exit codes: 0 every case has its row (failed ones included), 2 bad sweep file;
 array mode: the case's own code (0, 2, 3; 1 crashed).
@@ -51,8 +54,9 @@ array mode: the case's own code (0, 2, 3; 1 crashed).
       R"(usage: lentus collect SWEEP [--output FOLDER] [--base CASE] [--set Section/Key=VALUE ...]
 
 Merges the rows of the cases of SWEEP that have finished (in array mode, or by a
-stopped sweep) into FOLDER/results.csv and results.jsonl, draws the sweep's plot and
-lists the cases still missing. Give the same --output, --base and --set as the sweep.
+stopped sweep) into FOLDER/results.csv and results.jsonl (and fluid_uncertainty.csv
+and .jsonl for fluid samples), draws the sweep's plot and lists the cases still missing.
+Give the same --output, --base and --set as the sweep.
 Exit codes: 0 every case has a result, 1 some are missing, 2 bad sweep file.
 )";
 

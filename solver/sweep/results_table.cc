@@ -4,7 +4,9 @@
 #include "solver/report/atomic_file.h"
 #include "solver/report/caution.h"
 #include "solver/report/json_text.h"
+#include "solver/sweep/fluid_uncertainty.h"
 #include "solver/sweep/sweep_file.h"
+#include "solver/sweep/table_cells.h"
 
 #include <cmath>
 #include <cstdio>
@@ -52,38 +54,36 @@ namespace lentus::sweep
         fields.emplace_back();
       return fields;
     }
-
-    std::string number_text(const double value)
-    {
-      if (!std::isfinite(value))
-        return "";
-      char buffer[40];
-      std::snprintf(buffer, sizeof buffer, "%.10g", value);
-      return buffer;
-    }
-
-    /// A cell per RFC 4180: quoted when it holds a comma, a quote or a line break; quotes doubled.
-    std::string csv_cell(const std::string &text)
-    {
-      if (text.find_first_of(",\"\r\n") == std::string::npos)
-        return text;
-      std::string out = "\"";
-      for (const char c : text)
-        out += c == '"' ? std::string("\"\"") : std::string(1, c);
-      return out + "\"";
-    }
-
-    /// A varied value in JSON: a number if it reads as one (an integer if it is one), else the text.
-    nlohmann::ordered_json json_value(const std::string &text)
-    {
-      const auto number = input::parse_real(text);
-      if (!number || !std::isfinite(*number))
-        return text;
-      if (std::abs(*number) < 1e15 && *number == std::round(*number))
-        return static_cast<long long>(*number);
-      return report::json_number(*number);
-    }
   } // namespace
+
+  std::string number_text(const double value)
+  {
+    if (!std::isfinite(value))
+      return "";
+    char buffer[40];
+    std::snprintf(buffer, sizeof buffer, "%.10g", value);
+    return buffer;
+  }
+
+  std::string csv_cell(const std::string &text)
+  {
+    if (text.find_first_of(",\"\r\n") == std::string::npos)
+      return text;
+    std::string out = "\"";
+    for (const char c : text)
+      out += c == '"' ? std::string("\"\"") : std::string(1, c);
+    return out + "\"";
+  }
+
+  nlohmann::ordered_json json_value(const std::string &text)
+  {
+    const auto number = input::parse_real(text);
+    if (!number || !std::isfinite(*number))
+      return text;
+    if (std::abs(*number) < 1e15 && *number == std::round(*number))
+      return static_cast<long long>(*number);
+    return report::json_number(*number);
+  }
 
   std::string row_text(const ResultRow &row)
   {
@@ -101,10 +101,11 @@ namespace lentus::sweep
         std::snprintf(value, sizeof value, "%.17g", number.value);
         text << "number\t" << escape(number.name) << "\t" << value << "\t" << escape(number.unit);
         if (number.error)
-          {
-            std::snprintf(value, sizeof value, "%.17g", *number.error);
-            text << "\t" << value;
-          }
+          std::snprintf(value, sizeof value, "%.17g", *number.error);
+        if (number.error || number.key)
+          text << "\t" << (number.error ? value : "");
+        if (number.key)
+          text << "\tkey";
         text << "\n";
       }
     text << "Newton iterations\t" << row.newton_iterations << "\nwall time\t" << number_text(row.wall_time)
@@ -149,9 +150,11 @@ namespace lentus::sweep
               row.status = f[1];
             else if (key == "reason")
               row.reason = f[1];
-            else if (key == "number" && (f.size() == 4 || f.size() == 5))
+            else if (key == "number" && (f.size() == 4 || f.size() == 5 || (f.size() == 6 && f[5] == "key")))
               row.numbers.push_back({f[1], std::stod(f[2]), f[3],
-                                     f.size() == 5 ? std::optional<double>(std::stod(f[4])) : std::nullopt});
+                                     f.size() >= 5 && !f[4].empty() ? std::optional<double>(std::stod(f[4])) :
+                                                                       std::nullopt,
+                                     f.size() == 6});
             else if (key == "Newton iterations")
               row.newton_iterations = std::stoul(f[1]);
             else if (key == "wall time")
@@ -322,6 +325,32 @@ namespace lentus::sweep
     report.jsonl_path = (std::filesystem::path(plan.results_folder) / "results.jsonl").string();
     report::write_file_atomically(report.csv_path, csv);
     report::write_file_atomically(report.jsonl_path, jsonl);
+
+    // Fluid samples: the third table. Without them, one an earlier sweep wrote into this folder
+    // would stand beside a table it does not belong to; the picture of earlier tables goes
+    // either way (the runner draws it again from the new ones).
+    const std::filesystem::path folder(plan.results_folder);
+    const std::filesystem::path fluid_csv   = folder / "fluid_uncertainty.csv";
+    const std::filesystem::path fluid_jsonl = folder / "fluid_uncertainty.jsonl";
+    std::filesystem::remove(folder / "fluid_uncertainty.png");
+    if (!plan.fluid_samples)
+      {
+        std::filesystem::remove(fluid_csv);
+        std::filesystem::remove(fluid_jsonl);
+        return report;
+      }
+    const std::vector<FluidGroup> groups = fluid_uncertainty(plan, rows);
+    std::vector<std::string>      group_units;
+    for (const std::string &key : plan.group_keys())
+      group_units.push_back(unit_of_key(schema, key));
+    const auto [fluid_csv_text, fluid_jsonl_text] =
+      fluid_uncertainty_tables(groups, plan.group_keys(), group_units, plan.fluid_samples->fitted);
+    report.fluid_csv_path   = fluid_csv.string();
+    report.fluid_jsonl_path = fluid_jsonl.string();
+    report::write_file_atomically(report.fluid_csv_path, fluid_csv_text);
+    report::write_file_atomically(report.fluid_jsonl_path, fluid_jsonl_text);
+    report.fluid_summary      = fluid_uncertainty_summary(groups, report.fluid_csv_path);
+    report.fluid_plot_numbers = fluid_plot_numbers(groups, plan.plot_number);
     return report;
   }
 } // namespace lentus::sweep

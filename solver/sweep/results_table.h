@@ -35,6 +35,7 @@ namespace lentus::sweep
     double                value;
     std::string           unit;
     std::optional<double> error; ///< error bar (mesh + regularization), same unit; none if not estimated
+    bool                  key = false; ///< one of the few numbers a user came for (report::DesignNumber::key)
   };
 
   /// One case's line of the table.
@@ -83,9 +84,15 @@ namespace lentus::sweep
     std::vector<std::pair<std::string, std::size_t>> by_status; ///< status -> cases, in order of first appearance
     std::vector<std::string> missing; ///< ids without a current row
     std::string              csv_path, jsonl_path;
+    /// Fluid samples only (solver/sweep/fluid_uncertainty.h): the third table, its printed summary
+    /// and the design numbers its picture shows.
+    std::string              fluid_csv_path, fluid_jsonl_path, fluid_summary;
+    std::vector<std::string> fluid_plot_numbers;
   };
 
   /// Merges the rows of every case of `plan` into results.csv and results.jsonl
-  /// in the results folder (both written atomically).
+  /// in the results folder (both written atomically); for fluid samples also
+  /// fluid_uncertainty.csv and fluid_uncertainty.jsonl (removed when the sweep has none, so
+  /// that no earlier one stays beside a new table).
   CollectReport collect_results(const SweepPlan &plan, const input::CaseSchema &schema);
 } // namespace lentus::sweep

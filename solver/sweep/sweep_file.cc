@@ -22,12 +22,13 @@ namespace lentus::sweep
 
     const char *statements =
       "base case = FILE, results folder = FOLDER, combine = grid|zip, vary KEY = VALUES, fix KEY = VALUE, "
-      "table = FILE.csv, cases from = FILE, case NAME ... end, plot = DESIGN NUMBER, plot against = KEY, "
-      "plot curves = KEY";
+      "table = FILE.csv, cases from = FILE, case NAME ... end, fluid samples = CASE NAME, plot = DESIGN NUMBER, "
+      "plot against = KEY, plot curves = KEY";
 
     /// The words that start a sweep file's statements.
-    const std::vector<std::string> settings_words = {"base case",  "results folder", "combine",     "table",
-                                                     "cases from", "plot against",   "plot curves", "plot"};
+    const std::vector<std::string> settings_words = {"base case",    "results folder", "combine",
+                                                     "table",        "cases from",     "fluid samples",
+                                                     "plot against", "plot curves",    "plot"};
 
     /// One dimension of the sweep: a vary line, a table or the list of explicit cases.
     struct Dimension
@@ -94,6 +95,8 @@ namespace lentus::sweep
       std::vector<Override>     fixed;
       std::map<std::string, std::pair<std::string, int>> varied_where; ///< key -> file, line
       std::set<std::string>     case_names;
+      std::vector<std::string>  case_order; ///< the names, in file order (for messages)
+      std::optional<FluidSamples> fluid_samples;
 
       /// Checks that `path` is a key that may be set, and `value` (if any) is allowed.
       void check_key(const std::string &file, int line, const std::string &path) const;
@@ -102,8 +105,12 @@ namespace lentus::sweep
       std::vector<std::string> values_of(const std::string &file, int line, const std::string &path,
                                          const std::string &spec) const;
       Dimension &case_dimension(const std::string &file, int line);
-      /// Reads case blocks from `text`; with `only_cases`, nothing else is allowed.
+      /// Reads case blocks from `text` (and a `fluid samples` line); nothing else is allowed.
       void read_case_blocks(const std::string &text, const std::string &file);
+      /// A `fluid samples = NAME` line, in the sweep file or a file named by `cases from`.
+      void note_fluid_samples(const std::string &file, int line, const std::string &name);
+      /// The checks of the `fluid samples` line once every case block is read.
+      void check_fluid_samples(const std::string &combination) const;
       void read_table(const std::string &file, const std::string &where, int line);
     };
 
@@ -248,10 +255,17 @@ namespace lentus::sweep
             continue;
           if (open_line == 0)
             {
+              const auto equals = line.find('=');
+              if (equals != std::string::npos && trim(line.substr(0, equals)) == "fluid samples")
+                {
+                  note_fluid_samples(file, line_number, trim(line.substr(equals + 1)));
+                  continue;
+                }
               if (line.rfind("case ", 0) != 0 && line != "case")
                 throw InputError(file, line_number,
                                  "cannot read '" + line + "'; a file named by 'cases from' holds only "
-                                                          "'case NAME' ... 'end' blocks and comments");
+                                                          "'case NAME' ... 'end' blocks, a 'fluid samples = CASE "
+                                                          "NAME' line and comments");
               open_name = trim(line.substr(4));
               open_line = line_number;
               open_values.clear();
@@ -261,6 +275,7 @@ namespace lentus::sweep
                                  "case '" + open_name + "': not a case name; allowed: letters, digits, '.', '_', '-'");
               if (!case_names.insert(open_name).second)
                 throw InputError(file, line_number, "case '" + open_name + "': named twice; allowed: unique names");
+              case_order.push_back(open_name);
               continue;
             }
           if (line == "end")
@@ -289,6 +304,51 @@ namespace lentus::sweep
         }
       if (open_line != 0)
         throw InputError(file, open_line, "case " + open_name + " is not closed by 'end'");
+    }
+
+    void Parser::note_fluid_samples(const std::string &file, const int line, const std::string &name)
+    {
+      if (name.empty())
+        throw InputError(file, line,
+                         "fluid samples = (empty): a value is needed; allowed: the name of the case that holds the "
+                         "fit's estimates (fitted in the case list lentus fit writes)");
+      if (fluid_samples)
+        throw InputError(file, line,
+                         "fluid samples = " + name + ": set twice (first in " + fluid_samples->file + ":" +
+                           std::to_string(fluid_samples->line) + "); allowed: one 'fluid samples' line");
+      fluid_samples = FluidSamples{name, file, line, {}};
+    }
+
+    void Parser::check_fluid_samples(const std::string &combination) const
+    {
+      if (!fluid_samples)
+        return;
+      const std::string what = "fluid samples = " + fluid_samples->fitted;
+      if (case_list < 0)
+        throw InputError(fluid_samples->file, fluid_samples->line,
+                         what + ": the sweep has no explicit cases to be samples; allowed: with 'case NAME' ... "
+                                "'end' blocks or 'cases from = FILE' (the samples.sweep of lentus fit), one of "
+                                "them named " + fluid_samples->fitted);
+      if (!case_names.count(fluid_samples->fitted))
+        {
+          std::string names;
+          for (std::size_t i = 0; i < case_order.size() && i < 5; ++i)
+            names += (i ? ", " : "") + case_order[i];
+          if (case_order.size() > 5)
+            names += ", ... (" + std::to_string(case_order.size()) + " cases)";
+          throw InputError(fluid_samples->file, fluid_samples->line,
+                           what + ": no case of that name; allowed: the name of the case with the fit's estimates, "
+                                  "one of " + names);
+        }
+      if (case_order.size() < 2)
+        throw InputError(fluid_samples->file, fluid_samples->line,
+                         what + ": the case list holds no samples besides it; allowed: a case list with the fitted "
+                                "case and one or more samples (lentus fit --samples N)");
+      if (combination == "zip" && dimensions.size() > 1)
+        throw InputError(fluid_samples->file, fluid_samples->line,
+                         what + ": with 'combine = zip' each sample would run at other values of the other keys, "
+                                "and their effect would count as the fluid's; allowed: combine = grid (every "
+                                "sample at every value of the other keys)");
     }
 
     /// Splits one CSV line; double quotes protect commas ("" is a quote).
@@ -436,6 +496,11 @@ namespace lentus::sweep
               read_table(resolve_relative(value, name), name, line_number);
               continue;
             }
+          if (word == "fluid samples")
+            {
+              note_fluid_samples(name, line_number, value);
+              continue;
+            }
           if (word == "cases from")
             {
               const std::string file = resolve_relative(value, name);
@@ -497,6 +562,7 @@ namespace lentus::sweep
 
       // Settings.
       plan.combination = setting_values.count("combine") ? setting_values["combine"] : "grid";
+      check_fluid_samples(plan.combination);
       if (!settings.base_case.empty())
         plan.base_case = settings.base_case;
       else if (setting_values.count("base case"))
@@ -546,6 +612,15 @@ namespace lentus::sweep
                 plan.varied_keys.push_back(value.path);
         }
       plan.has_names = case_list >= 0;
+      if (fluid_samples)
+        {
+          plan.fluid_samples = fluid_samples;
+          for (const std::vector<Override> &point : dimensions[case_list].points)
+            for (const Override &value : point)
+              if (std::find(plan.fluid_samples->keys.begin(), plan.fluid_samples->keys.end(), value.path) ==
+                  plan.fluid_samples->keys.end())
+                plan.fluid_samples->keys.push_back(value.path);
+        }
 
       const int width = std::max<int>(4, static_cast<int>(std::to_string(total - 1).size()));
       for (std::size_t index = 0; index < total; ++index)
@@ -657,6 +732,16 @@ namespace lentus::sweep
     return count;
   }
 
+  std::vector<std::string> SweepPlan::group_keys() const
+  {
+    std::vector<std::string> keys;
+    if (fluid_samples)
+      for (const std::string &key : varied_keys)
+        if (std::find(fluid_samples->keys.begin(), fluid_samples->keys.end(), key) == fluid_samples->keys.end())
+          keys.push_back(key);
+    return keys;
+  }
+
   std::string SweepPlan::shape_description() const
   {
     if (dimension_sizes.size() == 1)
@@ -674,6 +759,9 @@ namespace lentus::sweep
     std::ostringstream text;
     text << "# Lentus sweep plan: every case of " << sweep_file << ", spelled out (for the record).\n"
          << "# base case: " << base_case << "\n# " << cases.size() << " cases, " << shape_description() << "\n";
+    if (fluid_samples)
+      text << "# fluid samples: case " << fluid_samples->fitted
+           << " holds the fit's estimates, the other cases of the list are samples of the fluid\n";
     for (const SweepCase &sweep_case : cases)
       {
         text << sweep_case.id << (sweep_case.name.empty() ? "" : " (" + sweep_case.name + ")") << ":";

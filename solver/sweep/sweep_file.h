@@ -15,6 +15,7 @@
 //   case NAME                                # explicit cases (format 1)
 //     Section/Subsection/Key = value
 //   end
+//   fluid samples = fitted                   # the case list samples a fitted fluid; this case holds the estimates
 //   fix Geometry/Refinement = 2              # the same in every case
 //   plot           = pressure drop inlet to outlet   # design number drawn...
 //   plot against   = Boundary conditions/Inflow rates # ...against this key,
@@ -56,6 +57,17 @@ namespace lentus::sweep
     std::uint64_t         fingerprint = 0; ///< of base case text and overrides: a stored result is reused only if equal
   };
 
+  /// `fluid samples = NAME`: the explicit cases sample a fitted fluid's confidence region (as
+  /// `lentus fit` writes them) and case NAME holds the fit's estimates; every other case of the
+  /// list is a sample. The sweep then states each design number's spread over the samples.
+  struct FluidSamples
+  {
+    std::string              fitted; ///< name of the case with the estimates
+    std::string              file;   ///< where the line is (for messages)
+    int                      line = 0;
+    std::vector<std::string> keys;   ///< the keys the case list sets (the fluid's parameters)
+  };
+
   /// A parsed sweep file, expanded into its cases.
   struct SweepPlan
   {
@@ -69,8 +81,12 @@ namespace lentus::sweep
     bool                     has_names = false; ///< explicit cases exist
     std::vector<SweepCase>   cases;
     std::string              plot_number, plot_against, plot_curves; ///< "" if not set
+    std::optional<FluidSamples> fluid_samples;                       ///< if the case list is marked so
 
     std::size_t n_invalid() const;
+    /// The varied keys outside the fluid samples' case list: the cases that share their values
+    /// (one fitted case and its samples) form one group. Empty without fluid samples.
+    std::vector<std::string> group_keys() const;
     /// "3 x 4 grid", "2 dimensions zipped" or "one list".
     std::string shape_description() const;
     /// Every case spelled out, for the record (plan.txt in the results folder).

@@ -141,7 +141,8 @@ namespace lentus::sweep
           row.reason            = result.reason;
           row.newton_iterations = result.newton_iterations;
           for (const report::DesignNumber &number : result.numbers.all())
-            row.numbers.push_back({number.name, number.value, number.unit, report::total_error(number.accuracy)});
+            row.numbers.push_back(
+              {number.name, number.value, number.unit, report::total_error(number.accuracy), number.key});
         }
       catch (const InputError &error)
         {
@@ -279,7 +280,8 @@ namespace lentus::sweep
                   const std::string name = entry.path().filename().string();
                   if (name[0] != '.' && name != "plan.txt" && name != "cases" && name != "rows" && name != "claims" &&
                       name != "attempts" && name != "output" && name != "runner.lock" && name != "results.csv" &&
-                      name != "results.jsonl" && name != "plot.png")
+                      name != "results.jsonl" && name != "plot.png" && name != "fluid_uncertainty.csv" &&
+                      name != "fluid_uncertainty.jsonl" && name != "fluid_uncertainty.png")
                     throw InputError("results folder = " + plan.results_folder + ": holds " + name +
                                      ", which a sweep does not write; allowed: a new folder, or one an earlier "
                                      "sweep wrote");
@@ -408,6 +410,23 @@ namespace lentus::sweep
         print_line("Missing " + std::to_string(report.missing.size()) + " case(s) without a result: " + list +
                    " (run them with lentus sweep, or --case-index I)");
       }
+    if (!report.fluid_plot_numbers.empty())
+      {
+        const std::string picture = (fs::path(plan.results_folder) / "fluid_uncertainty.png").string();
+        if (!report::plotting_available())
+          print_line("No picture of the fluid's uncertainty: " + report::plotting_install_hint());
+        else
+          {
+            std::vector<std::string> arguments = {report.csv_path, "--fluid", report.fluid_csv_path, "--output",
+                                                  picture};
+            for (const std::string &number : report.fluid_plot_numbers)
+              arguments.insert(arguments.end(), {"--number", number});
+            if (report::run_script("plot_sweep.py", arguments) == 0)
+              print_line("Plot of the fluid's uncertainty: " + picture);
+            else
+              print_line("No picture of the fluid's uncertainty: scripts/plot_sweep.py failed (see above)");
+          }
+      }
     if (!plan.plot_number.empty() && report.rows > 0)
       {
         const std::string picture = (fs::path(plan.results_folder) / "plot.png").string();
@@ -425,6 +444,11 @@ namespace lentus::sweep
               print_line("No plot: scripts/plot_sweep.py failed (see above)");
           }
       }
+    // The fluid's uncertainty last, right above the caution.
+    if (!report.fluid_csv_path.empty())
+      print_line("Table of the uncertainty from the fluid: " + report.fluid_csv_path + " and " +
+                 report.fluid_jsonl_path + "\n" +
+                 report.fluid_summary.substr(0, report.fluid_summary.find_last_not_of('\n') + 1));
     print_caution();
     return report.missing.empty() ? exit_code::success : exit_code::failure;
   }

@@ -74,6 +74,8 @@ namespace lentus::rheology::fit
       EXPECT_NE(text, sweep_file(fit, 8, 2, "paste.csv"));
       EXPECT_THAT(text, ::testing::HasSubstr("case fitted\n  Rheology/Herschel-Bulkley/Consistency = "));
       EXPECT_THAT(text, ::testing::HasSubstr("case sample-008\n"));
+      // Marked as samples of the fluid, naming the case with the estimates, before the cases.
+      EXPECT_LT(text.find("\nfluid samples = fitted\n"), text.find("\ncase fitted\n"));
       std::size_t cases = 0, ends = 0;
       for (std::size_t at = text.find("\ncase "); at != std::string::npos; at = text.find("\ncase ", at + 1))
         ++cases;

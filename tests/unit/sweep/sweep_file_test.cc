@@ -279,6 +279,29 @@ namespace
     EXPECT_EQ(sweep::unit_of_key(input::case_schema(), "Geometry/Pipe/Radius"), "m");
   }
 
+  // Row files keep whether a number is a key number; rows written before that still read.
+  TEST(ResultsTable, RowFilesKeepKeyNumbers)
+  {
+    sweep::ResultRow row;
+    row.id      = "case-0000";
+    row.status  = sweep::status::converged;
+    row.numbers = {{"pressure drop inlet to outlet", 1.5, "Pa", std::nullopt, true},
+                   {"a", 2., "m", 0.5, true},
+                   {"b", 3., "m", 0.25, false}};
+    sweep::ResultRow back;
+    ASSERT_TRUE(sweep::parse_row(sweep::row_text(row), back));
+    ASSERT_EQ(back.numbers.size(), 3u);
+    EXPECT_TRUE(back.numbers[0].key);
+    EXPECT_FALSE(back.numbers[0].error.has_value());
+    EXPECT_TRUE(back.numbers[1].key);
+    EXPECT_EQ(back.numbers[1].error, 0.5);
+    EXPECT_FALSE(back.numbers[2].key);
+    ASSERT_TRUE(sweep::parse_row("id\tcase-0001\nstatus\tconverged\nnumber\tb\t3\tm\t0.25\nend\n", back));
+    EXPECT_FALSE(back.numbers[0].key);
+    EXPECT_EQ(back.numbers[0].error, 0.25);
+    EXPECT_FALSE(sweep::parse_row("id\tcase-0001\nstatus\tconverged\nnumber\tb\t3\tm\t0.25\tkez\nend\n", back));
+  }
+
   // A number with an error bar in some row gets an error column beside it (empty where a row has no
   // bar); the JSON lines carry the bar as "error".
   TEST(ResultsTable, ErrorBarsGetTheirOwnColumns)
