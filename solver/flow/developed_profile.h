@@ -15,12 +15,13 @@ namespace lentus::flow
   /// u(s) for the flow rate Q (slit: per unit depth [m^2/s]; pipe and annulus: [m^3/s]), from the
   /// exact 1D momentum balance and the law's inverse gamma_dot(tau):
   /// - slit and pipe: tau(s) = tau_w s / h, u(s) = int_s^h gamma_dot(tau_w t / h) dt, s the distance
-  ///   from the midplane or the axis, tau_w found so that the profile carries Q (CHECKS.md A6;
-  ///   Rabinowitsch-Mooney);
+  ///   from the midplane or the axis, tau_w found so that the profile carries Q (the
+  ///   Rabinowitsch-Mooney construction: Rabinowitsch 1929, Z. Phys. Chem. A145:1; Mooney 1931, J. Rheol. 2:210);
   /// - annulus between radii a < b, walls at both: tau_rz(r) = (G/2)(lambda^2 b^2 / r - r), with the
   ///   pressure gradient G and the radius lambda b of zero stress found by a nested root search:
   ///   lambda so that u, integrated outward from u(a) = 0, vanishes at b; G so that the profile
-  ///   carries Q (the construction of Fredrickson & Bird 1958 for any law; CHECKS.md A9).
+  ///   carries Q (the construction of Fredrickson & Bird 1958, Ind. Eng. Chem. 50:347, from memory for the
+  ///   volume and page, for any law).
   class DevelopedProfile
   {
   public:

@@ -57,7 +57,8 @@ TEST(DieNumbers, HagenPoiseuilleLandAndEntranceLoss)
   EXPECT_EQ(numbers.find("flow rate out through outlet")->unit, "m^3/s");
 }
 
-// The same integrals of a planar case are per metre of depth: no 2 pi, units per metre.
+// The same integrals of a planar case are per metre of depth: no 2 pi, units per metre (the
+// convention of a planar section's totals: common practice).
 TEST(RoleNumbers, PlanarTotalsArePerMetreOfDepth)
 {
   FlowIntegrals integrals = round_die(1e-4, 10.);
