@@ -238,8 +238,19 @@ def _numerics(summary):
         if steps:
             parts.append("<details><summary>Every nonlinear iteration (%d)</summary>\n%s</details>" % (
                 len(steps), _record_table(steps, _columns(steps), None, "iterations")))
+    phases = numerics.get("seconds by phase")
+    if isinstance(phases, dict) and phases:
+        # The run's wall time by phase, largest first, and each mesh's beside it.
+        order = sorted(phases, key=lambda name: -(phases[name] or 0.))
+        by_mesh = [mesh.get("seconds by phase", {}) for mesh in meshes]
+        records = [dict([("phase", name), ("run [s]", phases[name])] +
+                        [("mesh %d [s]" % (index + 1), mesh.get(name)) for index, mesh in enumerate(by_mesh) if mesh])
+                   for name in order]
+        parts.append("<h3>Seconds by phase</h3>\n" + _record_table(
+            records, [column for column in records[0] if column != "phase"],
+            ("phase", lambda index, record: record["phase"]), "phases"))
     for key, value in numerics.items():  # any other list or object of the numerics
-        if key in ("meshes", "solves"):
+        if key in ("meshes", "solves", "seconds by phase"):
             continue
         if isinstance(value, list) and all(isinstance(record, dict) for record in value) and value:
             parts.append("<h3>%s</h3>\n%s" % (_escape(key), _record_table(value, _columns(value))))

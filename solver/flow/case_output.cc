@@ -5,6 +5,8 @@
 #include "solver/report/caution.h"
 #include "solver/version.h"
 
+#include <deal.II/base/timer.h>
+
 #include <cstdio>
 
 namespace lentus::flow
@@ -18,12 +20,15 @@ namespace lentus::flow
                    (flow.model.inertia ? ", with inertia" : ", creeping flow"));
   }
 
-  void write_case_folder(FlowState &state, const report::Summary &summary, report::CaseFolder &folder)
+  void write_case_folder(FlowState &state, report::Summary &summary, report::CaseFolder &folder)
   {
+    const dealii::Timer timer;
     if (state.physics.flow.output.write_fields)
       write_fields(state, folder.staging());
     const std::string exit_profile = exit_profile_csv(state);
     const std::string wall_profile = wall_profile_csv(state);
+    summary.history.add_seconds(report::Phase::output, timer.wall_time());
+    summary.resources.wall_seconds += timer.wall_time();
 
     state.log.line(summary.converged ? "Converged." : "NOT CONVERGED: " + summary.reason);
     state.log.line("Design numbers" + std::string(summary.converged ? "" : " (of the last iterate, not converged)") +
@@ -33,6 +38,7 @@ namespace lentus::flow
     for (const std::string &caution : summary.case_cautions)
       state.log.line("Note: " + caution);
     state.log.line(std::string("Caution: ") + report::caution);
+    state.log.line(report::phase_line(summary));
 
     folder.write("summary.json", report::to_json(summary));
     folder.write("case.prm", state.physics.flow.complete_text);

@@ -12,9 +12,10 @@ namespace lentus::flow
   /// The log's first lines: version, case, ranks, fluid and velocity components.
   void log_start(FlowState &state);
 
-  /// Logs the status and design numbers, and writes the folder: fields (VTU/PVD), die profiles
-  /// (CSV), summary.json, case.prm and log.txt; then commits it. Collective.
-  void write_case_folder(FlowState &state, const report::Summary &summary, report::CaseFolder &folder);
+  /// Logs the status, design numbers and seconds by phase, and writes the folder: fields (VTU/PVD),
+  /// die profiles (CSV), summary.json, case.prm and log.txt; then commits it. The time of the output
+  /// is added to the summary's phases and wall time. Collective.
+  void write_case_folder(FlowState &state, report::Summary &summary, report::CaseFolder &folder);
 
   /// What run_flow_case returns for `summary`, written to `folder`.
   RunResult result_of(const report::Summary &summary, const std::string &folder);

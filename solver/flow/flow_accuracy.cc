@@ -287,8 +287,12 @@ namespace lentus::flow
                          format(" (indicator and refinement %.2f s)", timer.wall_time()));
           outcome.converged = solve_from_current(state, state.physics, outcome, "adaptive cycle " + std::to_string(cycle));
           if (outcome.converged)
-            outcome.mesh_numbers.push_back({state.mesh.triangulation.n_global_active_cells(),
-                                            state.mesh.dof_handler.n_dofs(), current_design_numbers(state)});
+            {
+              Timer numbers_timer;
+              outcome.mesh_numbers.push_back({state.mesh.triangulation.n_global_active_cells(),
+                                              state.mesh.dof_handler.n_dofs(), current_design_numbers(state)});
+              outcome.history.add_seconds(report::Phase::design_numbers, numbers_timer.wall_time());
+            }
         }
       outcome.target_status = "after " + std::to_string(cycle - 1) + " of at most " +
                               std::to_string(accuracy.adaptive_cycles) + " adaptive cycles";
@@ -324,7 +328,9 @@ namespace lentus::flow
       const std::string reason = outcome.reason;
       if (solve_from_current(state, stiffer, outcome, label, true))
         {
+          Timer numbers_timer;
           outcome.at_larger_m           = current_design_numbers(state, stiffer);
+          outcome.history.add_seconds(report::Phase::design_numbers, numbers_timer.wall_time());
           outcome.regularization_factor = factor;
         }
       else

@@ -57,6 +57,25 @@ namespace lentus::flow
 
   namespace
   {
+  /// A symmetric 3x3 tensor in Mandel's notation (xx, yy, zz, sqrt2 xy, sqrt2 xz, sqrt2 yz), so that
+  /// the double contraction A:B is the plain dot product of six numbers.
+  struct Mandel
+  {
+    double v[6];
+  };
+
+  Mandel mandel_of_strain(const Tensor<2, 3> &L)
+  {
+    const double half_root2 = 0.5 * std::sqrt(2.);
+    return {{L[0][0], L[1][1], L[2][2], half_root2 * (L[0][1] + L[1][0]), half_root2 * (L[0][2] + L[2][0]),
+             half_root2 * (L[1][2] + L[2][1])}};
+  }
+
+  double dot(const Mandel &a, const Mandel &b)
+  {
+    return a.v[0] * b.v[0] + a.v[1] * b.v[1] + a.v[2] * b.v[2] + a.v[3] * b.v[3] + a.v[4] * b.v[4] + a.v[5] * b.v[5];
+  }
+
   double assemble_into(const Physics &physics,
                        const Discretization &mesh,
                        const Vector &evaluation_point,
@@ -66,6 +85,7 @@ namespace lentus::flow
   {
     const bool             with_matrix = linearization != Linearization::none;
     const bool             newton      = linearization == Linearization::newton;
+    const bool             with_mass   = with_matrix && system.pressure_mass_wanted;
     const FESystem<2>     &fe          = mesh.fe;
     const unsigned int     n_velocity  = physics.n_velocity;
     const FormulationKind  kind        = physics.kind;
@@ -78,19 +98,26 @@ namespace lentus::flow
                                          update_JxW_values);
     const unsigned int     dofs_per_cell = fe.n_dofs_per_cell();
     const unsigned int     n_q           = quadrature.size();
-    FullMatrix<double>     cell_matrix(dofs_per_cell, dofs_per_cell), cell_mass(dofs_per_cell, dofs_per_cell);
+    FullMatrix<double>     cell_matrix(dofs_per_cell, dofs_per_cell);
     dealii::Vector<double> cell_residual(dofs_per_cell);
     std::vector<types::global_dof_index> dof_indices(dofs_per_cell);
     std::vector<dealii::Vector<double>>  values(n_q, dealii::Vector<double>(n_velocity + 1));
     std::vector<std::vector<Tensor<1, 2>>> gradients(n_q, std::vector<Tensor<1, 2>>(n_velocity + 1));
-    std::vector<Kinematics> shape(dofs_per_cell);
-    std::vector<double>     shape_divergence(dofs_per_cell), shape_pressure(dofs_per_cell);
-    std::vector<Tensor<2, 3>> shape_strain(dofs_per_cell);
-    std::vector<unsigned int> pressure_dofs; // cell-local indices of the pressure unknowns
+    // Cell-local indices of the velocity and pressure unknowns, and each one's component. A velocity
+    // shape function has one non-zero component: its U, symmetric gradient and divergence are
+    // computed once per quadrature point, and the pairs of the velocity block cost one 6-term
+    // dot product (the pressure-pressure block of the system matrix is zero and skipped).
+    std::vector<unsigned int> velocity_dofs, pressure_dofs, component_of(dofs_per_cell);
     for (unsigned int i = 0; i < dofs_per_cell; ++i)
-      if (fe.system_to_component_index(i).first == n_velocity)
-        pressure_dofs.push_back(i);
-    const auto                           n_pressure = static_cast<unsigned int>(pressure_dofs.size());
+      {
+        component_of[i] = fe.system_to_component_index(i).first;
+        (component_of[i] == n_velocity ? pressure_dofs : velocity_dofs).push_back(i);
+      }
+    const auto n_u = static_cast<unsigned int>(velocity_dofs.size());
+    const auto n_pressure = static_cast<unsigned int>(pressure_dofs.size());
+    std::vector<Tensor<1, 3>> shape_U(n_u), shape_transport(n_u);
+    std::vector<Mandel>       shape_strain(n_u);
+    std::vector<double>       shape_divergence(n_u), strain_projection(n_u), shape_pressure(n_pressure);
     FullMatrix<double>                   pressure_mass(n_pressure, n_pressure);
     std::vector<types::global_dof_index> pressure_indices(n_pressure);
 
@@ -103,15 +130,33 @@ namespace lentus::flow
     const double rho         = physics.flow.model.inertia ? physics.density : 0.;
     const double rho_gravity = physics.density;
     const double frame_omega = (physics.flow.model.impeller_frame() && kind == FormulationKind::planar) ? physics.flow.impeller_omega() : 0.;
+    // Primal-dual Newton: the stress t at each quadrature point is a second iterate (Chan, Golub &
+    // Mulet 1999, SIAM J. Sci. Comput. 20:1964, for total variation; here for tau = 2 eta D). With d
+    // the strain rate in Mandel's notation, n = d/|d|, sigma(gamma_dot) = eta gamma_dot the flow curve
+    // and sigma' its slope, the linearized law t |d| = sqrt2 sigma d gives the tangent
+    //   C = 2 eta I + 2 sigma' n n^T - (t n^T + n t^T) / (2 |d|)        (symmetrized)
+    // which is Newton's 2 eta (I - n n^T) + 2 sigma' n n^T when t = 2 eta d. After a step the stress
+    // moves along the tangent, t_new = 2 eta d + C (d_new - d), and is bounded by the law's stress at
+    // the new strain rate, |t_new| <= 2 eta(d_new) |d_new|, which keeps C positive.
+    const bool         primal_dual = newton && physics.flow.nonlinear.linearization == input::NewtonLinearization::primal_dual;
+    constexpr unsigned n_dual      = 14; // d (6), t (6), eta, sigma'
+    const std::size_t  dual_size   = static_cast<std::size_t>(mesh.triangulation.n_active_cells()) * n_q * n_dual;
+    const bool         dual_known  = primal_dual && system.dual_valid && system.dual.size() == dual_size;
+    if (primal_dual && !dual_known)
+      system.dual.assign(dual_size, 0.);
+    std::vector<double> dual_n(n_u), dual_t(n_u);
+
+    // Without inertia the Jacobian is symmetric (the residual is the gradient of an energy):
+    // one triangle of the velocity block is computed and mirrored.
+    const bool symmetric = rho == 0.;
     Tensor<1, 3> gravity;
     gravity[0] = physics.flow.model.gravity[0];
     gravity[2] = physics.flow.model.gravity[1];
 
     if (with_matrix)
-      {
-        system.system_matrix = 0.;
-        system.pressure_mass = 0.;
-      }
+      system.system_matrix = 0.;
+    if (with_mass)
+      system.pressure_mass = 0.;
     system.residual = 0.;
 
     for (const auto &cell : mesh.dof_handler.active_cell_iterators())
@@ -123,7 +168,7 @@ namespace lentus::flow
         fe_values.get_function_values(evaluation_point, values);
         fe_values.get_function_gradients(evaluation_point, gradients);
         cell_matrix   = 0.;
-        cell_mass     = 0.;
+        pressure_mass = 0.;
         cell_residual = 0.;
 
         for (unsigned int q = 0; q < n_q; ++q)
@@ -132,10 +177,11 @@ namespace lentus::flow
             const double    w = volume_weight(kind, x) * fe_values.JxW(q);
 
             const Kinematics   u = kinematics(kind, x, &values[q][0], gradients[q].data());
-            const Tensor<2, 3> D = strain_rate(u.L);
-            const double       gamma_dot = std::sqrt(2. * contract(D, D));
+            const Mandel       D = mandel_of_strain(u.L);
+            const double       gamma_dot = std::sqrt(2. * dot(D, D));
             const auto         eta       = physics.law->evaluate(gamma_dot);
             const double       p         = values[q][n_velocity];
+            const double       divergence = trace(u.L);
             const Tensor<1, 3> convection = u.L * u.U;
             // (4a): 2 Omega e_z x u - Omega^2 r, with e_z x u = (-u_y, u_x) (mesh components 0 and 2).
             Tensor<1, 3> frame;
@@ -144,61 +190,136 @@ namespace lentus::flow
                 frame[0] = -2. * frame_omega * u.U[2] - frame_omega * frame_omega * x[0];
                 frame[2] = 2. * frame_omega * u.U[0] - frame_omega * frame_omega * x[1];
               }
+            // The force per unit velocity test function: viscous stress (1) and the body forces
+            // (2), (4), (4a) (constant over the shape functions).
+            const Tensor<1, 3> body = rho * convection - rho_gravity * gravity + rho * frame;
             // d eta/d gamma_dot * d gamma_dot / dD: the Newton term needs 4 eta'/gamma_dot.
             const double newton_factor = (newton && gamma_dot > 1e-300) ? 4. * eta.derivative / gamma_dot : 0.;
-
-            for (unsigned int i = 0; i < dofs_per_cell; ++i)
+            // Primal-dual: n, the stress t and the scale 1/(2|d|) of this point (dual_scale = 0: Newton's own).
+            Mandel n{}, t{};
+            double dual_scale = 0., slope = 0.;
+            const double strain_norm = std::sqrt(dot(D, D));
+            if (primal_dual && strain_norm > 1e-300)
               {
-                const unsigned int component = fe.system_to_component_index(i).first;
-                shape[i]                     = Kinematics();
-                shape_pressure[i]            = 0.;
-                if (component < n_velocity)
+                double *const stored = &system.dual[(cell->active_cell_index() * n_q + q) * n_dual];
+                slope                = eta.value + eta.derivative * gamma_dot; // sigma'
+                for (unsigned int k = 0; k < 6; ++k)
                   {
-                    double       shape_values[3] = {0., 0., 0.};
-                    Tensor<1, 2> shape_gradients[3];
-                    shape_values[component]    = fe_values.shape_value(i, q);
-                    shape_gradients[component] = fe_values.shape_grad(i, q);
-                    shape[i]                   = kinematics(kind, x, shape_values, shape_gradients);
+                    n.v[k] = D.v[k] / strain_norm;
+                    t.v[k] = 2. * eta.value * D.v[k];
                   }
-                else
-                  shape_pressure[i] = fe_values.shape_value(i, q);
-                shape_strain[i]     = strain_rate(shape[i].L);
-                shape_divergence[i] = trace(shape[i].L);
-              }
-
-            for (unsigned int i = 0; i < dofs_per_cell; ++i)
-              {
-                // (1) + (2) + (3) + (4) for velocity tests, (6) for pressure tests
-                cell_residual(i) += (2. * eta.value * contract(D, shape_strain[i]) +
-                                     rho * convection * shape[i].U - p * shape_divergence[i] -
-                                     rho_gravity * gravity * shape[i].U - shape_pressure[i] * trace(u.L) +
-                                     rho * frame * shape[i].U) *
-                                    w;
-                if (!with_matrix)
-                  continue;
-                const double D_dot_Di = contract(D, shape_strain[i]);
-                for (unsigned int j = 0; j < dofs_per_cell; ++j)
+                const double old_norm = std::sqrt(stored[0] * stored[0] + stored[1] * stored[1] + stored[2] * stored[2] +
+                                                  stored[3] * stored[3] + stored[4] * stored[4] + stored[5] * stored[5]);
+                if (dual_known && old_norm > 1e-300)
                   {
-                    double entry = 2. * eta.value * contract(shape_strain[j], shape_strain[i]) // (1')
-                                   + newton_factor * contract(D, shape_strain[j]) * D_dot_Di   // (1') Newton
-                                   - shape_pressure[j] * shape_divergence[i]                   // (3')
-                                   - shape_pressure[i] * shape_divergence[j];                  // (6')
-                    if (rho != 0.)
+                    // t_new = 2 eta_old d_old + C_old (d - d_old), C_old from the stored state.
+                    const double *d_old = stored, *t_old = stored + 6;
+                    const double  eta_old = stored[12], slope_old = stored[13];
+                    double        change[6], n_old[6];
+                    double        n_change = 0., t_change = 0.;
+                    for (unsigned int k = 0; k < 6; ++k)
                       {
-                        Tensor<1, 3> linearized = shape[j].L * u.U; // (2') Oseen part
-                        if (newton)
-                          linearized += u.L * shape[j].U;
-                        // (4a') the Coriolis force is linear in u: kept by Picard and Newton alike
-                        linearized[0] -= 2. * frame_omega * shape[j].U[2];
-                        linearized[2] += 2. * frame_omega * shape[j].U[0];
-                        entry += rho * linearized * shape[i].U;
+                        change[k] = D.v[k] - d_old[k];
+                        n_old[k]  = d_old[k] / old_norm;
+                        n_change += n_old[k] * change[k];
+                        t_change += t_old[k] * change[k];
                       }
-                    cell_matrix(i, j) += entry * w;
-                    // 1/eta-weighted pressure mass matrix for the Schur-complement preconditioner
-                    cell_mass(i, j) += shape_pressure[i] * shape_pressure[j] / eta.value * w;
+                    Mandel moved;
+                    for (unsigned int k = 0; k < 6; ++k)
+                      moved.v[k] = 2. * eta_old * d_old[k] + 2. * eta_old * change[k] + 2. * slope_old * n_old[k] * n_change -
+                                   (t_old[k] * n_change + n_old[k] * t_change) / (2. * old_norm);
+                    const double bound = 2. * eta.value * strain_norm, size = std::sqrt(dot(moved, moved));
+                    const double scale = size > bound ? bound / size : 1.;
+                    for (unsigned int k = 0; k < 6; ++k)
+                      t.v[k] = scale * moved.v[k];
+                  }
+                for (unsigned int k = 0; k < 6; ++k)
+                  {
+                    stored[k]     = D.v[k];
+                    stored[6 + k] = t.v[k];
+                  }
+                stored[12] = eta.value;
+                stored[13] = slope;
+                dual_scale = 1. / (2. * strain_norm);
+              }
+
+            for (unsigned int a = 0; a < n_u; ++a)
+              {
+                const unsigned int i               = velocity_dofs[a];
+                const unsigned int component       = component_of[i];
+                double             shape_values[3] = {0., 0., 0.};
+                Tensor<1, 2>       shape_gradients[3];
+                shape_values[component]    = fe_values.shape_value(i, q);
+                shape_gradients[component] = fe_values.shape_grad(i, q);
+                const Kinematics shape     = kinematics(kind, x, shape_values, shape_gradients);
+                shape_U[a]                 = shape.U;
+                shape_strain[a]            = mandel_of_strain(shape.L);
+                shape_divergence[a]        = trace(shape.L);
+                strain_projection[a]       = dot(D, shape_strain[a]);
+                if (dual_scale > 0.)
+                  {
+                    dual_n[a] = dot(n, shape_strain[a]);
+                    dual_t[a] = dot(t, shape_strain[a]);
+                  }
+                // (1) + (2) + (3) + (4) + (4a)
+                cell_residual(i) += (2. * eta.value * strain_projection[a] + body * shape.U - p * shape_divergence[a]) * w;
+                if (with_matrix && rho != 0.)
+                  {
+                    // (2') the Oseen part, Newton's second part and (4a') the Coriolis force (linear in
+                    // u: kept by Picard and Newton alike), as the force of shape function a.
+                    Tensor<1, 3> linearized = shape.L * u.U;
+                    if (newton)
+                      linearized += u.L * shape.U;
+                    linearized[0] -= 2. * frame_omega * shape.U[2];
+                    linearized[2] += 2. * frame_omega * shape.U[0];
+                    shape_transport[a] = rho * linearized;
                   }
               }
+            for (unsigned int b = 0; b < n_pressure; ++b)
+              {
+                shape_pressure[b] = fe_values.shape_value(pressure_dofs[b], q);
+                cell_residual(pressure_dofs[b]) -= shape_pressure[b] * divergence * w; // (6)
+              }
+            if (!with_matrix)
+              continue;
+
+            const double two_eta_w = 2. * eta.value * w, newton_w = newton_factor * w;
+            for (unsigned int a = 0; a < n_u; ++a)
+              {
+                const unsigned int i      = velocity_dofs[a];
+                const unsigned int last   = symmetric ? a + 1 : n_u;
+                const double       newton_a = newton_w * strain_projection[a];
+                for (unsigned int c = 0; c < last; ++c)
+                  {
+                    // (1') and its Newton part
+                    double entry = two_eta_w * dot(shape_strain[a], shape_strain[c]);
+                    if (dual_scale > 0.)
+                      entry += w * (2. * slope * dual_n[a] * dual_n[c] -
+                                    dual_scale * (dual_t[a] * dual_n[c] + dual_n[a] * dual_t[c]));
+                    else
+                      entry += newton_a * strain_projection[c];
+                    if (rho != 0.)
+                      entry += shape_transport[c] * shape_U[a] * w; // (2'), (4a')
+                    cell_matrix(i, velocity_dofs[c]) += entry;
+                  }
+                for (unsigned int b = 0; b < n_pressure; ++b)
+                  {
+                    // (3') and (6')
+                    const double entry = -shape_pressure[b] * shape_divergence[a] * w;
+                    cell_matrix(i, pressure_dofs[b]) += entry;
+                    cell_matrix(pressure_dofs[b], i) += entry;
+                  }
+              }
+            if (with_mass)
+              // 1/eta-weighted pressure mass matrix for the Schur-complement preconditioner
+              for (unsigned int b = 0; b < n_pressure; ++b)
+                for (unsigned int c = 0; c < n_pressure; ++c)
+                  pressure_mass(b, c) += shape_pressure[b] * shape_pressure[c] / eta.value * w;
           }
+        if (with_matrix && symmetric)
+          for (unsigned int a = 0; a < n_u; ++a)
+            for (unsigned int c = 0; c < a; ++c)
+              cell_matrix(velocity_dofs[c], velocity_dofs[a]) = cell_matrix(velocity_dofs[a], velocity_dofs[c]);
 
         // (5) set normal stress on pressure roles
         for (const auto face_no : cell->face_indices())
@@ -235,24 +356,23 @@ namespace lentus::flow
           {
             mesh.zero_constraints.distribute_local_to_global(cell_matrix, cell_residual, dof_indices,
                                                               system.system_matrix, system.residual);
-            // Only the pressure block of cell_mass is non-zero; the matrix has the pressure pattern.
-            for (unsigned int i = 0; i < n_pressure; ++i)
+            if (with_mass)
               {
-                pressure_indices[i] = dof_indices[pressure_dofs[i]];
-                for (unsigned int j = 0; j < n_pressure; ++j)
-                  pressure_mass(i, j) = cell_mass(pressure_dofs[i], pressure_dofs[j]);
+                for (unsigned int b = 0; b < n_pressure; ++b)
+                  pressure_indices[b] = dof_indices[pressure_dofs[b]];
+                mesh.zero_constraints.distribute_local_to_global(pressure_mass, pressure_indices, system.pressure_mass);
               }
-            mesh.zero_constraints.distribute_local_to_global(pressure_mass, pressure_indices, system.pressure_mass);
           }
         else
           mesh.zero_constraints.distribute_local_to_global(cell_residual, dof_indices, system.residual);
       }
 
     if (with_matrix)
-      {
-        system.system_matrix.compress(VectorOperation::add);
-        system.pressure_mass.compress(VectorOperation::add);
-      }
+      system.dual_valid = primal_dual;
+    if (with_matrix)
+      system.system_matrix.compress(VectorOperation::add);
+    if (with_mass)
+      system.pressure_mass.compress(VectorOperation::add);
     if (reactions)
       {
         reactions->compress(VectorOperation::add);

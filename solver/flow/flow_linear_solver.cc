@@ -10,6 +10,7 @@
 
 #include <petscksp.h>
 
+#include <chrono>
 #include <vector>
 
 namespace lentus::flow
@@ -61,34 +62,74 @@ namespace lentus::flow
                             is.out()),
             "ISCreateGeneral");
     }
+
   } // namespace
 
-  unsigned int solve_linear(const Physics &physics, const Discretization &mesh, LinearSystem &system,
-                            Vector &update, const bool direct, const double relative_tolerance)
+  /// The direct solver of one mesh: its KSP keeps MUMPS's analysis (ordering and symbolic
+  /// factorization) while the matrix keeps its sparsity pattern, so that a Newton step pays only
+  /// for the numerical factorization (PETSc redoes the analysis itself if the pattern changes).
+  struct KeptLinearSolver
   {
-    OwnedKSP owned_ksp;
-    check(KSPCreate(mesh.comm, owned_ksp.out()), "KSPCreate");
-    const KSP ksp = owned_ksp.get();
-    PC        pc;
-    // The prefix must precede the field split, whose sub-solvers inherit it.
-    check(KSPSetOptionsPrefix(ksp, "lentus_"), "KSPSetOptionsPrefix");
-    check(KSPSetOperators(ksp, system.system_matrix.petsc_matrix(), system.system_matrix.petsc_matrix()),
-          "KSPSetOperators");
-    check(KSPGetPC(ksp, &pc), "KSPGetPC");
-    OwnedIS  velocity_is, pressure_is;
-    OwnedMat schur_preconditioner;
+    OwnedKSP ksp;
+  };
+
+  namespace
+  {
+    using Clock = std::chrono::steady_clock;
+
+    double seconds_since(const Clock::time_point start)
+    {
+      return std::chrono::duration<double>(Clock::now() - start).count();
+    }
+
+    /// MUMPS sparse LU through PETSc's KSPPREONLY + PCLU, set up once per mesh.
+    KSP direct_solver(const Discretization &mesh, LinearSystem &system)
+    {
+      if (!system.kept_solver)
+        {
+          auto kept = std::make_shared<KeptLinearSolver>();
+          check(KSPCreate(mesh.comm, kept->ksp.out()), "KSPCreate");
+          const KSP ksp = kept->ksp.get();
+          PC        pc;
+          check(KSPSetOptionsPrefix(ksp, "lentus_"), "KSPSetOptionsPrefix");
+          check(KSPSetType(ksp, KSPPREONLY), "KSPSetType");
+          check(KSPGetPC(ksp, &pc), "KSPGetPC");
+          check(PCSetType(pc, PCLU), "PCSetType");
+          check(PCFactorSetMatSolverType(pc, MATSOLVERMUMPS), "PCFactorSetMatSolverType");
+          // PETSC_OPTIONS with the prefix (e.g. "-lentus_ksp_view") reach the direct solver too;
+          // without such options the solver stays as set above.
+          check(KSPSetFromOptions(ksp), "KSPSetFromOptions");
+          system.kept_solver = kept;
+        }
+      const KSP ksp = system.kept_solver->ksp.get();
+      // The same matrix object with new values: PCSetUp refactors numerically only.
+      check(KSPSetOperators(ksp, system.system_matrix.petsc_matrix(), system.system_matrix.petsc_matrix()),
+            "KSPSetOperators");
+      return ksp;
+    }
+  } // namespace
+
+  LinearSolve solve_linear(const Physics &physics, const Discretization &mesh, LinearSystem &system,
+                           Vector &update, const bool direct, const double relative_tolerance)
+  {
+    LinearSolve result;
+    const auto  start = Clock::now();
+    OwnedKSP    owned_ksp;
+    OwnedIS     velocity_is, pressure_is;
+    OwnedMat    schur_preconditioner;
+    KSP         ksp = nullptr;
     if (direct)
-      {
-        check(KSPSetType(ksp, KSPPREONLY), "KSPSetType");
-        check(PCSetType(pc, PCLU), "PCSetType");
-        check(PCFactorSetMatSolverType(pc, MATSOLVERMUMPS), "PCFactorSetMatSolverType");
-        // PETSC_OPTIONS with the prefix (e.g. "-lentus_ksp_view") reach the direct solver too;
-        // without such options the solver stays as set above.
-        check(KSPSetFromOptions(ksp), "KSPSetFromOptions");
-      }
+      ksp = direct_solver(mesh, system);
     else
       {
-        const FEValuesExtractors::Vector velocity(0);
+        check(KSPCreate(mesh.comm, owned_ksp.out()), "KSPCreate");
+        ksp = owned_ksp.get();
+        PC pc;
+        // The prefix must precede the field split, whose sub-solvers inherit it.
+        check(KSPSetOptionsPrefix(ksp, "lentus_"), "KSPSetOptionsPrefix");
+        check(KSPSetOperators(ksp, system.system_matrix.petsc_matrix(), system.system_matrix.petsc_matrix()),
+              "KSPSetOperators");
+        check(KSPGetPC(ksp, &pc), "KSPGetPC");
         const FEValuesExtractors::Scalar pressure(physics.n_velocity);
         ComponentMask                    velocity_mask(physics.n_velocity + 1, false);
         for (unsigned int c = 0; c < physics.n_velocity; ++c)
@@ -128,17 +169,26 @@ namespace lentus::flow
       }
 
     Vector owned_update(mesh.owned, mesh.comm);
-    const PetscErrorCode solved = KSPSolve(ksp, static_cast<const Vec &>(system.residual), static_cast<const Vec &>(owned_update));
+    // The factorization or preconditioner set-up, timed apart from the solve.
+    const PetscErrorCode set_up = KSPSetUp(ksp);
+    result.setup_seconds        = seconds_since(start);
+    const auto           solve_start = Clock::now();
+    const PetscErrorCode solved = set_up != 0 ? set_up : KSPSolve(ksp, static_cast<const Vec &>(system.residual), static_cast<const Vec &>(owned_update));
     KSPConvergedReason reason;
     PetscInt           iterations = 0;
     KSPGetConvergedReason(ksp, &reason);
     KSPGetIterationNumber(ksp, &iterations);
     if (solved != 0 || reason < 0)
-      throw NoConvergence(std::string(direct ? "the direct solver (MUMPS)" : "FGMRES") +
+      {
+        system.kept_solver.reset(); // a failed factorization is not kept
+        throw NoConvergence(std::string(direct ? "the direct solver (MUMPS)" : "FGMRES") +
                           " failed on the linearized system (PETSc reason " + std::to_string(int(reason)) +
                           "); the Jacobian may be singular: check that every boundary has a condition");
+      }
     mesh.zero_constraints.distribute(owned_update);
-    update = owned_update;
-    return direct ? 1u : static_cast<unsigned int>(iterations);
+    update               = owned_update;
+    result.iterations    = direct ? 1u : static_cast<unsigned int>(iterations);
+    result.solve_seconds = seconds_since(solve_start);
+    return result;
   }
 } // namespace lentus::flow

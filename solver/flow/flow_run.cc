@@ -20,7 +20,9 @@ namespace lentus::flow
     SolveOutcome outcome = solve_with_mesh_sequencing(*state); // builds the meshes, solves on each
     improve_accuracy(*state, outcome, timer.wall_time());       // adaptive cycles, regularization check
     make_pressure_mean_free(*state);
+    const double    solved           = timer.wall_time();
     report::Summary summary          = summarize(*state, outcome);
+    summary.history.add_seconds(report::Phase::design_numbers, timer.wall_time() - solved);
     summary.resources.wall_seconds   = timer.wall_time();
     write_case_folder(*state, summary, folder);
     run_result = result_of(summary, folder.path());

@@ -422,6 +422,7 @@ namespace lentus::flow
     DoFTools::make_hanging_node_constraints(state.mesh.dof_handler, state.mesh.hanging_constraints);
     state.mesh.hanging_constraints.close();
 
+    state.system.kept_solver.reset(); // its factorization belongs to the old mesh: freed first
     DynamicSparsityPattern pattern(state.mesh.relevant);
     DoFTools::make_sparsity_pattern(state.mesh.dof_handler, pattern, state.mesh.zero_constraints, false);
     SparsityTools::distribute_sparsity_pattern(pattern, state.mesh.owned, state.mesh.comm, state.mesh.relevant);

@@ -85,12 +85,26 @@ namespace lentus::flow
     bool                                            pressure_pinned = false;
   };
 
+  /// A linear solver kept from one Newton step to the next on the same mesh (flow_linear_solver.cc):
+  /// the direct solver's symbolic factorization is made once per mesh.
+  struct KeptLinearSolver;
+
   /// The linear system of the current linearization.
   struct LinearSystem
   {
     Matrix system_matrix;
     Matrix pressure_mass; ///< 1/eta-weighted pressure mass matrix (Schur-complement preconditioner)
     Vector residual;      ///< -R, owned
+    /// Whether assemble() fills pressure_mass (only the iterative solver uses it).
+    bool pressure_mass_wanted = true;
+    /// Set up by solve_linear(), dropped by setup_dofs() (a new mesh has a new sparsity pattern).
+    std::shared_ptr<KeptLinearSolver> kept_solver;
+    /// Primal-dual Newton (Nonlinear solver/Newton linearization): per quadrature point of every
+    /// active cell, the strain rate, the stress used and the law's values of the last Newton
+    /// assembly. Valid only between Newton assemblies of one solve (iterate() and Picard steps
+    /// drop it; a stale state is never read because its size no longer matches).
+    std::vector<double> dual;
+    bool                dual_valid = false;
   };
 
   /// A solved flow as the design numbers see it: the physics it was solved for, the mesh and the
@@ -153,10 +167,18 @@ namespace lentus::flow
                           Vector &reactions);
 
   // flow_linear_solver.cc
-  /// Solves system_matrix * update = residual; returns the iterations (1 for the direct solver).
-  /// `relative_tolerance` is the iterative solver's residual reduction.
-  unsigned int solve_linear(const Physics &physics, const Discretization &mesh, LinearSystem &system,
-                            Vector &update, bool direct, double relative_tolerance = 1e-10);
+  /// What one linear solve did.
+  struct LinearSolve
+  {
+    unsigned int iterations    = 0;  ///< 1 for the direct solver
+    double       setup_seconds = 0.; ///< factorization or preconditioner set-up
+    double       solve_seconds = 0.; ///< the solve after it
+  };
+  /// Solves system_matrix * update = residual. `relative_tolerance` is the iterative solver's
+  /// residual reduction. The direct solver keeps its symbolic factorization in system.kept_solver
+  /// for the following steps on the same mesh.
+  LinearSolve solve_linear(const Physics &physics, const Discretization &mesh, LinearSystem &system,
+                           Vector &update, bool direct, double relative_tolerance = 1e-10);
 
   // flow_newton.cc
   /// The fluid's law with one parameter replaced (continuation, regularization check), at the case's

@@ -260,6 +260,9 @@ namespace lentus::input
     const FlowSection &model = flow.model;
     if ((model.inertia || model.gravity[0] != 0. || model.gravity[1] != 0.) && !flow.fluid.density)
       file.fail("Rheology/Density", "missing; inertia and gravity need it", "a density > 0 kg/m^3");
+    if (model.inertia && flow.nonlinear.line_search == LineSearch::energy)
+      file.fail("Nonlinear solver/Line search", "the flow has inertia (Flow/Inertia = true), whose residual is not "
+                "the gradient of an energy", "residual with inertia");
 
     assign_conditions(file, flow);
 

@@ -130,6 +130,20 @@ namespace lentus::input
     keys.real("Picard until", picard_until, Range::above(0.),
               "Picard steps while residual / first residual is above this, then Newton [-].");
     keys.integer("Maximum Picard steps", max_picard_steps, 0, 10000, "Picard steps at most before Newton takes over.");
+    keys.choice<LineSearch>("Line search", line_search,
+                            {{"residual", LineSearch::residual}, {"energy", LineSearch::energy}},
+                            "How far along each Newton or Picard step to go. residual: halve the step until the "
+                            "residual norm falls; energy: the step length where the slope of the flow's energy "
+                            "along the step, R(x + s dx) . dx, vanishes (regula falsi; creeping flow only, whose "
+                            "residual is the gradient of a convex energy). residual took fewer steps on the "
+                            "yield-stress cases measured.");
+    keys.choice<NewtonLinearization>(
+      "Newton linearization", linearization,
+      {{"primal", NewtonLinearization::primal}, {"primal-dual", NewtonLinearization::primal_dual}},
+      "primal: Newton's exact Jacobian in velocity and pressure; primal-dual: the stress is a second "
+      "iterate at the quadrature points, updated by its own linearization and bounded by the law's stress "
+      "at the new shear rate, which keeps Newton's model sound where the shear rate is small or turns "
+      "(yield-stress and strongly shear-thinning fluids); the same solution either way.");
     keys.boolean("Continuation", continuation,
                  "When a solve fails, approach the case by continuation from an easier one: in the density "
                  "(Reynolds number) with inertia, else in what the viscosity law names (the regularization "

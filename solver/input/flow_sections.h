@@ -117,6 +117,18 @@ namespace lentus::input
     void bind(SectionKeys &keys);
   };
 
+  enum class LineSearch
+  {
+    residual, ///< backtracking on the residual norm
+    energy     ///< the step where the slope of the energy along the step, R(x + s dx) . dx, vanishes
+  };
+
+  enum class NewtonLinearization
+  {
+    primal,     ///< the exact Jacobian of the velocity-pressure residual
+    primal_dual ///< the stress kept as a second iterate at the quadrature points (Chan, Golub & Mulet 1999)
+  };
+
   /// subsection Nonlinear solver.
   struct NonlinearSolverSection
   {
@@ -126,6 +138,8 @@ namespace lentus::input
     double       picard_until       = 1e-2; ///< Picard while residual / initial residual is above this
     unsigned int max_picard_steps   = 10;
     bool         continuation       = true;
+    LineSearch   line_search        = LineSearch::residual;
+    NewtonLinearization linearization = NewtonLinearization::primal;
     /// Levels solved first on coarser meshes; nullopt: chosen from the size of the problem.
     std::optional<unsigned int> mesh_sequencing;
 

@@ -9,6 +9,58 @@ namespace lentus::report
     return kind == StepKind::picard ? "Picard" : "Newton";
   }
 
+  const char *to_string(const Phase phase)
+  {
+    switch (phase)
+      {
+        case Phase::residual_assembly:
+          return "residual assembly";
+        case Phase::jacobian_assembly:
+          return "Jacobian assembly";
+        case Phase::solver_setup:
+          return "linear solver set-up";
+        case Phase::linear_solve:
+          return "linear solve";
+        case Phase::line_search:
+          return "line search";
+        case Phase::mesh_setup:
+          return "meshes and set-up";
+        case Phase::design_numbers:
+          return "design numbers";
+        case Phase::output:
+          return "fields output";
+      }
+    return "?";
+  }
+
+  double PhaseSeconds::total() const
+  {
+    double sum = 0.;
+    for (const double value : seconds)
+      sum += value;
+    return sum;
+  }
+
+  PhaseSeconds &PhaseSeconds::operator+=(const PhaseSeconds &other)
+  {
+    for (std::size_t i = 0; i < n_phases; ++i)
+      seconds[i] += other.seconds[i];
+    return *this;
+  }
+
+  void SolveHistory::add_seconds(const Phase phase, const double seconds)
+  {
+    (mesh_records.empty() ? before_meshes : mesh_records.back().phases)[phase] += seconds;
+  }
+
+  PhaseSeconds SolveHistory::run_phases() const
+  {
+    PhaseSeconds sum = before_meshes;
+    for (const MeshRecord &mesh : mesh_records)
+      sum += mesh.phases;
+    return sum;
+  }
+
   void SolveHistory::begin_mesh(const std::uint64_t cells, const std::uint64_t unknowns,
                                 const std::string &linear_solver, const std::string &refinement)
   {
@@ -25,6 +77,7 @@ namespace lentus::report
     if (mesh_records.empty())
       throw std::logic_error("SolveHistory: mesh time before any mesh");
     mesh_records.back().other_seconds += seconds;
+    mesh_records.back().phases[Phase::mesh_setup] += seconds;
   }
 
   void SolveHistory::begin_solve(const std::string &label, const double initial_residual)

@@ -3,6 +3,7 @@
 // a continuation) and every iteration. Plain C++; summary.json and the log read it.
 #pragma once
 
+#include <array>
 #include <cstdint>
 #include <string>
 #include <vector>
@@ -17,6 +18,34 @@ namespace lentus::report
 
   /// "Picard", "Newton".
   const char *to_string(StepKind kind);
+
+  /// Where a run's wall time goes, so that every speed claim can be measured.
+  enum class Phase
+  {
+    residual_assembly, ///< residuals outside the line search (initial, reference at rest)
+    jacobian_assembly, ///< matrix and residual of a step
+    solver_setup,      ///< factorization or preconditioner set-up
+    linear_solve,      ///< the linear solve after its set-up
+    line_search,       ///< the residuals of trial steps
+    mesh_setup,        ///< meshes, refinement, transfer, unknowns and sparsity patterns
+    design_numbers,    ///< design numbers and their error estimates
+    output             ///< fields written to the case folder
+  };
+  inline constexpr std::size_t n_phases = 8;
+
+  /// "residual assembly", "Jacobian assembly", ...
+  const char *to_string(Phase phase);
+
+  /// Seconds spent in each phase.
+  struct PhaseSeconds
+  {
+    std::array<double, n_phases> seconds{};
+
+    double &operator[](Phase phase) { return seconds[static_cast<std::size_t>(phase)]; }
+    double  operator[](Phase phase) const { return seconds[static_cast<std::size_t>(phase)]; }
+    double  total() const;
+    PhaseSeconds &operator+=(const PhaseSeconds &other);
+  };
 
   struct IterationRecord
   {
@@ -46,6 +75,7 @@ namespace lentus::report
     unsigned int newton = 0, picard = 0, linear = 0;
     double       seconds = 0.; ///< in nonlinear iterations
     double       other_seconds = 0.; ///< refinement, indicator and set-up of the mesh
+    PhaseSeconds phases;              ///< of the work on this mesh
   };
 
   class SolveHistory
@@ -56,6 +86,11 @@ namespace lentus::report
                     const std::string &refinement = "case mesh");
     /// Wall time of the current mesh outside the nonlinear iterations (refinement, set-up) [s].
     void add_mesh_seconds(double seconds);
+    /// Time spent in `phase`, counted to the current mesh (to the run before any mesh) [s].
+    void add_seconds(Phase phase, double seconds);
+    /// Every phase over the whole run.
+    PhaseSeconds run_phases() const;
+
     /// A new solve on the current mesh.
     void begin_solve(const std::string &label, double initial_residual);
     /// An iteration of the current solve.
@@ -75,5 +110,6 @@ namespace lentus::report
     std::vector<MeshRecord>  mesh_records;
     std::vector<SolveRecord> solve_records;
     std::vector<std::string> continuation;
+    PhaseSeconds             before_meshes;
   };
 } // namespace lentus::report

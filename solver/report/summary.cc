@@ -5,6 +5,7 @@
 
 #include <nlohmann/json.hpp>
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 
@@ -99,9 +100,19 @@ namespace lentus::report
     numerics["peak memory all ranks [MiB]"] = number(summary.resources.peak_memory_all_ranks);
     numerics["wall time [s]"]               = number(summary.resources.wall_seconds);
     numerics["ranks"]                       = summary.resources.ranks;
+    const auto phase_object = [](const PhaseSeconds &phases) {
+      Json object = Json::object();
+      for (std::size_t i = 0; i < n_phases; ++i)
+        object[to_string(static_cast<Phase>(i))] = number(phases.seconds[i]);
+      return object;
+    };
+    const PhaseSeconds run_phases = history.run_phases();
+    Json &by_phase = numerics["seconds by phase"] = phase_object(run_phases);
+    by_phase["other"] = number(std::max(0., summary.resources.wall_seconds - run_phases.total()));
     Json &meshes = numerics["meshes"] = Json::array();
     for (const MeshRecord &mesh : history.meshes())
       meshes.push_back({{"unknowns", mesh.unknowns},
+                        {"seconds by phase", phase_object(mesh.phases)},
                         {"cells", mesh.cells},
                         {"refinement", mesh.refinement},
                         {"set-up seconds", number(mesh.other_seconds)},
@@ -130,6 +141,25 @@ namespace lentus::report
     // Text that is not valid UTF-8 (a case path, say) is written with replacement characters
     // rather than failing a finished solve.
     return json.dump(2, ' ', false, Json::error_handler_t::replace) + "\n";
+  }
+
+  std::string phase_line(const Summary &summary)
+  {
+    const PhaseSeconds phases = summary.history.run_phases();
+    std::vector<std::pair<double, std::string>> parts;
+    for (std::size_t i = 0; i < n_phases; ++i)
+      parts.emplace_back(phases.seconds[i], to_string(static_cast<Phase>(i)));
+    parts.emplace_back(std::max(0., summary.resources.wall_seconds - phases.total()), "other");
+    std::stable_sort(parts.begin(), parts.end(), [](const auto &a, const auto &b) { return a.first > b.first; });
+    std::string line = "Seconds by phase:";
+    char        text[120];
+    for (const auto &[seconds, name] : parts)
+      {
+        std::snprintf(text, sizeof text, "%s %s %.2f", line.back() == ':' ? "" : ",", name.c_str(), seconds);
+        line += text;
+      }
+    std::snprintf(text, sizeof text, " (of %.2f s wall time)", summary.resources.wall_seconds);
+    return line + text;
   }
 
   std::vector<std::string> design_number_lines(const DesignNumbers &numbers)

@@ -54,4 +54,8 @@ namespace lentus::report
 
   /// The design numbers as aligned lines "  name   value +/- error unit" for the log and the terminal.
   std::vector<std::string> design_number_lines(const DesignNumbers &numbers);
+
+  /// "Seconds by phase: Jacobian assembly 1.2, ..., other 0.1 (of 5.3 s wall time)": the run's
+  /// phases, largest first.
+  std::string phase_line(const Summary &summary);
 } // namespace lentus::report

@@ -130,6 +130,28 @@ TEST(BinghamPipe, RegularizedFlowRateAndConvergenceToBuckinghamReiner)
   EXPECT_NEAR(sharp.number("unyielded area fraction"), 0.5, 1. / 24.);
 }
 
+// Nonlinear solver/Line search = energy (and with it the primal-dual Newton linearization) finds the
+// same solution as the default backtracking on the residual: the flow rate against the regularized law's own (Papanastasiou 1987; quadrature of the
+// Rabinowitsch-Mooney integral, tests/reference/viscoplastic.h), and both runs' flow rates agree to the
+// nonlinear tolerance.
+TEST(BinghamPipe, EnergyLineSearchFindsTheSameSolution)
+{
+  using namespace lentus::testing;
+  const double regularized = papanastasiou_bingham_pipe_flow_rate(1., 1., 1., 0.5, 100.);
+  const auto   energy   = run_case("bingham_pipe_energy", pipe_case(bingham(100.), 3), {"Nonlinear solver/Line search=energy"});
+  const auto   residual = run_case("bingham_pipe_residual", pipe_case(bingham(100.), 3));
+  ASSERT_TRUE(energy.converged) << energy.reason;
+  ASSERT_TRUE(residual.converged) << residual.reason;
+  const double q = energy.number("flow rate out through outlet");
+  EXPECT_LT(relative(q, regularized), 0.005);
+  EXPECT_LT(relative(q, residual.number("flow rate out through outlet")), 1e-6);
+  // Primal-dual Newton (Chan, Golub & Mulet 1999) changes the path, not the solution.
+  const auto primal_dual = run_case("bingham_pipe_primal_dual", pipe_case(bingham(100.), 3),
+                                    {"Nonlinear solver/Newton linearization=primal-dual", "Nonlinear solver/Line search=energy"});
+  ASSERT_TRUE(primal_dual.converged) << primal_dual.reason;
+  EXPECT_LT(relative(primal_dual.number("flow rate out through outlet"), q), 1e-6);
+}
+
 TEST(HerschelBulkleyPipe, FlowRate)
 {
   // Source: the Herschel-Bulkley pipe flow rate derived in tests/reference/viscoplastic.h from the

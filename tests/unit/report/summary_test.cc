@@ -134,3 +134,36 @@ TEST(DesignNumbers, ANameTwiceIsAnError)
   EXPECT_THROW(numbers.add("maximum speed", "u_max", 2., "m/s", Group::flow), std::logic_error);
   EXPECT_THROW(numbers.value("torque"), std::out_of_range);
 }
+
+// Seconds by phase: each mesh's own, the run's sums, and the rest of the wall time as "other";
+// the log's line lists them largest first.
+TEST(Summary, SecondsByPhase)
+{
+  Summary summary = two_mesh_summary();
+  summary.history.add_seconds(Phase::jacobian_assembly, 2.);
+  summary.history.add_seconds(Phase::solver_setup, 3.);
+  summary.history.add_seconds(Phase::line_search, 0.5);
+  summary.resources.wall_seconds = 10.;
+  SolveHistory before;
+  before.add_seconds(Phase::mesh_setup, 0.25); // before any mesh: counted to the run
+  before.begin_mesh(4, 50, "direct (MUMPS)");
+  before.add_mesh_seconds(0.5);
+  EXPECT_EQ(before.run_phases()[Phase::mesh_setup], 0.75);
+
+  const nlohmann::json json   = nlohmann::json::parse(to_json(summary));
+  const auto          &phases = json.at("numerics").at("seconds by phase");
+  for (std::size_t i = 0; i < n_phases; ++i)
+    EXPECT_TRUE(phases.contains(to_string(static_cast<Phase>(i)))) << to_string(static_cast<Phase>(i));
+  EXPECT_EQ(phases.at("Jacobian assembly").get<double>(), 2.);
+  EXPECT_EQ(phases.at("linear solver set-up").get<double>(), 3.);
+  EXPECT_EQ(phases.at("other").get<double>(), 4.5);
+  // The phases were added while the second mesh was the current one: the first has none.
+  EXPECT_EQ(json.at("numerics").at("meshes").at(0).at("seconds by phase").at("Jacobian assembly").get<double>(), 0.);
+  EXPECT_EQ(json.at("numerics").at("meshes").at(1).at("seconds by phase").at("Jacobian assembly").get<double>(), 2.);
+
+  const std::string line = phase_line(summary);
+  EXPECT_EQ(line.find("Seconds by phase: other 4.50, linear solver set-up 3.00, Jacobian assembly 2.00, line search 0.50"),
+            0u)
+    << line;
+  EXPECT_NE(line.find("(of 10.00 s wall time)"), std::string::npos) << line;
+}
