@@ -5,6 +5,7 @@
 #include "run_case.h"
 
 #include <gtest/gtest.h>
+#include <petscsys.h>
 
 #include <cmath>
 #include <functional>
@@ -83,6 +84,21 @@ TEST_P(PowerLawSlit, FlowRateAndWallForces)
 }
 
 INSTANTIATE_TEST_SUITE_P(Verification, PowerLawSlit, ::testing::Values(0.5, 1.5));
+
+// PETSc's GAMG on the velocity block, chosen through PETSc's options (set here in the process, as
+// PETSC_OPTIONS would), gets the rigid-body modes of planar flow as its near null space and finds the
+// same slit flow rate (same source as above).
+TEST(PowerLawSlitIterative, GamgOnTheVelocityBlock)
+{
+  const double n = 0.5;
+  const double q = 2. * n / (2. * n + 1.) * std::pow(0.5, 2. + 1. / n);
+  ASSERT_EQ(PetscOptionsSetValue(nullptr, "-lentus_fieldsplit_u_pc_type", "gamg"), 0);
+  const auto result =
+    run_case("power_law_slit_gamg", channel_case(power_law(n), 3), {"Linear solver/Type=iterative"});
+  PetscOptionsClearValue(nullptr, "-lentus_fieldsplit_u_pc_type");
+  ASSERT_TRUE(result.converged) << result.reason;
+  EXPECT_LT(relative(result.number("flow rate out through outlet"), q), 0.005);
+}
 
 class PowerLawPipe : public ::testing::TestWithParam<double>
 {};
