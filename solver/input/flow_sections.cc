@@ -140,10 +140,12 @@ namespace lentus::input
     keys.choice<NewtonLinearization>(
       "Newton linearization", linearization,
       {{"primal", NewtonLinearization::primal}, {"primal-dual", NewtonLinearization::primal_dual}},
-      "primal: Newton's exact Jacobian in velocity and pressure; primal-dual: the stress is a second "
-      "iterate at the quadrature points, updated by its own linearization and bounded by the law's stress "
-      "at the new shear rate, which keeps Newton's model sound where the shear rate is small or turns "
-      "(yield-stress and strongly shear-thinning fluids); the same solution either way.");
+      "primal: Newton's exact Jacobian in velocity and pressure, after Picard steps (Picard until, "
+      "Maximum Picard steps); primal-dual: the stress is a second iterate at the quadrature points, "
+      "updated by its own linearization and bounded by the law's stress at the new shear rate, which "
+      "keeps Newton's model sound where the shear rate is small or turns (yield-stress and strongly "
+      "shear-thinning fluids), and needs no Picard steps from a start next to the solution in creeping flow; the same solution "
+      "either way.");
     keys.boolean("Continuation", continuation,
                  "When a solve fails, approach the case by continuation from an easier one: in the density "
                  "(Reynolds number) with inertia, else in what the viscosity law names (the regularization "

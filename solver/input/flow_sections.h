@@ -139,7 +139,7 @@ namespace lentus::input
     unsigned int max_picard_steps   = 10;
     bool         continuation       = true;
     LineSearch   line_search        = LineSearch::residual;
-    NewtonLinearization linearization = NewtonLinearization::primal;
+    NewtonLinearization linearization = NewtonLinearization::primal_dual;
     /// Levels solved first on coarser meshes; nullopt: chosen from the size of the problem.
     std::optional<unsigned int> mesh_sequencing;
 
