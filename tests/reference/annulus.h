@@ -3,22 +3,14 @@
 // computed independently of the solver: shared by the unit and the verification tests.
 #pragma once
 
+#include "viscoplastic.h"
+
 #include <algorithm>
 #include <cmath>
 #include <functional>
 
 namespace lentus::testing
 {
-  /// Composite Simpson rule with n (even) intervals.
-  inline double simpson(const std::function<double(double)> &f, const double from, const double to, const int n = 20000)
-  {
-    const double h   = (to - from) / n;
-    double       sum = f(from) + f(to);
-    for (int k = 1; k < n; ++k)
-      sum += (k % 2 ? 4. : 2.) * f(from + k * h);
-    return sum * h / 3.;
-  }
-
   /// Newtonian annulus, Bird, Stewart & Lightfoot 2002, Transport Phenomena, section 2.4:
   /// Q = (pi G R^4 / (8 mu)) [(1 - k^4) - (1 - k^2)^2 / ln(1/k)], outer radius R, inner k R.
   inline double newtonian_annulus_flow_rate(const double mu, const double R, const double k, const double G)

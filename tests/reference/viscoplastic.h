@@ -20,7 +20,8 @@ namespace lentus::testing
   }
 
   /// Composite Simpson rule of f over [a, b] with `intervals` (even) subintervals.
-  inline double simpson(const std::function<double(double)> &f, const double a, const double b, const int intervals)
+  inline double simpson(const std::function<double(double)> &f, const double a, const double b,
+                        const int intervals = 20000)
   {
     const double h   = (b - a) / intervals;
     double       sum = f(a) + f(b);

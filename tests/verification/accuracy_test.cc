@@ -34,72 +34,6 @@ namespace
     EXPECT_GE(bar, truth) << name << ": " << value << " +/- " << bar << ", exact " << exact;
     EXPECT_LE(bar, factor * truth) << name << ": " << value << " +/- " << bar << ", exact " << exact;
   }
-
-  std::string bingham_pipe(const double M)
-  {
-    // R = 1 m, L = 1 m, dp = 2 Pa: tau_w = dp R / (2 L) = 1 Pa; mu_p = 1 Pa s, tau_y = 0.5 Pa.
-    return R"(
-subsection Rheology
-  set Viscosity law = Bingham
-  subsection Bingham
-    set Plastic viscosity = 1
-    set Yield stress = 0.5
-    set Regularization exponent = )" + std::to_string(M) + R"(
-  end
-end
-subsection Geometry
-  set Shape = Pipe
-  set Refinement = 3
-  subsection Pipe
-    set Radius = 1
-    set Length = 1
-  end
-end
-subsection Flow
-  set Velocity components = r z
-end
-subsection Boundary conditions
-  set No-slip = wall
-  set Axis = axis
-  set Pressure = inlet, outlet
-  set Pressure values = 2, 0
-end
-)";
-  }
-
-  /// Bingham fluid (mu_p = 1 Pa s, tau_y = 1 Pa, M = 1000 s) between cylinders R_i = 1 m and R_o = 2 m,
-  /// 0.25 m high with symmetry ends, the inner one turning at `omega`.
-  std::string bingham_couette(const double omega, const int refinement)
-  {
-    return R"(
-subsection Rheology
-  set Viscosity law = Bingham
-  subsection Bingham
-    set Plastic viscosity = 1
-    set Yield stress = 1
-    set Regularization exponent = 1000
-  end
-end
-subsection Geometry
-  set Shape = Annular gap
-  set Refinement = )" + std::to_string(refinement) + R"(
-  subsection Annular gap
-    set Inner radius = 1
-    set Outer radius = 2
-    set Height = 0.25
-  end
-end
-subsection Flow
-  set Velocity components = r z theta
-end
-subsection Boundary conditions
-  set Moving wall = inner wall
-  set Rotation rate = )" + lentus::testing::digits(omega) + R"(
-  set No-slip = outer wall
-  set Symmetry = bottom, top
-end
-)";
-  }
 } // namespace
 
 // Power-law slit, n = 0.5 (no regularization: the bar is the mesh error alone). Source: q =
@@ -127,7 +61,7 @@ TEST(ErrorBars, BinghamPipeFlowRateAgainstBuckinghamReiner)
   using namespace lentus::testing;
   const double ideal       = buckingham_reiner_flow_rate(1., 1., 1., 0.5);
   const double regularized = papanastasiou_bingham_pipe_flow_rate(1., 1., 1., 0.5, 100.);
-  const auto   result      = run_case("error_bar_bingham_pipe", bingham_pipe(100.));
+  const auto   result      = run_case("error_bar_bingham_pipe", lentus::testing::pressure_driven_pipe(lentus::testing::bingham(100.), 3));
   ASSERT_TRUE(result.converged) << result.reason;
   const std::string                   name   = "flow rate out through outlet";
   const lentus::report::DesignNumber &number = *result.numbers.find(name);
@@ -147,7 +81,7 @@ TEST(ErrorBars, BinghamPipeFlowRateAgainstBuckinghamReiner)
 TEST(ErrorBars, BinghamCouetteTorque)
 {
   const auto exact  = lentus::testing::bingham_couette(1., 3., 1., 1.);
-  const auto result = run_case("error_bar_bingham_couette", bingham_couette(exact.rotation_rate, 3));
+  const auto result = run_case("error_bar_bingham_couette", lentus::testing::bingham_couette_case(exact.rotation_rate, 3));
   ASSERT_TRUE(result.converged) << result.reason;
   expect_truthful(result, "torque on the fluid from inner wall", 2. * M_PI * 3. * 0.25);
 }
@@ -162,10 +96,10 @@ TEST(AdaptiveRefinement, BinghamCouetteYieldRadius)
   const auto   yield_radius = [](const lentus::flow::RunResult &result) {
     return 2. - result.number("unyielded area fraction");
   };
-  const auto adapted = run_case("adaptive_couette", bingham_couette(exact.rotation_rate, 3),
+  const auto adapted = run_case("adaptive_couette", lentus::testing::bingham_couette_case(exact.rotation_rate, 3),
                                 {"Accuracy/Adaptive cycles=1", "Accuracy/Refine at=yield surface"});
-  const auto uniform_3 = run_case("uniform_couette_3", bingham_couette(exact.rotation_rate, 3));
-  const auto uniform_4 = run_case("uniform_couette_4", bingham_couette(exact.rotation_rate, 4));
+  const auto uniform_3 = run_case("uniform_couette_3", lentus::testing::bingham_couette_case(exact.rotation_rate, 3));
+  const auto uniform_4 = run_case("uniform_couette_4", lentus::testing::bingham_couette_case(exact.rotation_rate, 4));
   for (const auto *result : {&adapted, &uniform_3, &uniform_4})
     ASSERT_TRUE(result->converged) << result->reason;
   ASSERT_EQ(adapted.meshes.back().refinement.rfind("adaptive cycle 1", 0), 0u);

@@ -17,34 +17,7 @@ TEST(BinghamCouette, TorqueAndYieldRadius)
   const auto exact = lentus::testing::bingham_couette(1., 3., 1., 1.);
   EXPECT_NEAR(exact.rotation_rate, 1. - std::log(std::sqrt(3.)), 1e-15);
   EXPECT_NEAR(exact.yield_radius, std::sqrt(3.), 1e-15);
-  const std::string text = R"(
-subsection Rheology
-  set Viscosity law = Bingham
-  subsection Bingham
-    set Plastic viscosity = 1
-    set Yield stress = 1
-    set Regularization exponent = 1000
-  end
-end
-subsection Geometry
-  set Shape = Annular gap
-  set Refinement = 3
-  subsection Annular gap
-    set Inner radius = 1
-    set Outer radius = 2
-    set Height = 0.25
-  end
-end
-subsection Flow
-  set Velocity components = r z theta
-end
-subsection Boundary conditions
-  set Moving wall = inner wall
-  set Rotation rate = )" + lentus::testing::digits(exact.rotation_rate) + R"(
-  set No-slip = outer wall
-  set Symmetry = bottom, top
-end
-)";
+  const std::string text = lentus::testing::bingham_couette_case(exact.rotation_rate, 3);
   const auto result = lentus::testing::run_case("bingham_couette", text);
   ASSERT_TRUE(result.converged) << result.reason;
   const double torque = 2. * M_PI * 1. * 3. * 0.25;

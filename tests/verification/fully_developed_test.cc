@@ -10,7 +10,9 @@
 #include <cmath>
 #include <functional>
 
+using lentus::testing::bingham;
 using lentus::testing::power_law;
+using lentus::testing::pressure_driven_pipe;
 using lentus::testing::run_case;
 
 namespace
@@ -19,43 +21,6 @@ namespace
   {
     // Full gap H = 1 (h = 0.5), length 2, pressure drop 2 Pa: G = 1 Pa/m, tau_w = G h = 0.5 Pa.
     return lentus::testing::pressure_driven_channel(rheology, refinement, 2., 2.);
-  }
-
-  std::string pipe_case(const std::string &rheology, const int refinement, const double pressure_drop = 2.)
-  {
-    // Radius 1, length 1: G = pressure drop, tau_w = G R / 2.
-    return rheology + R"(
-subsection Geometry
-  set Shape = Pipe
-  set Refinement = )" + std::to_string(refinement) + R"(
-  subsection Pipe
-    set Radius = 1
-    set Length = 1
-  end
-end
-subsection Flow
-  set Velocity components = r z
-end
-subsection Boundary conditions
-  set No-slip = wall
-  set Axis = axis
-  set Pressure = inlet, outlet
-  set Pressure values = )" + std::to_string(pressure_drop) + R"(, 0
-end
-)";
-  }
-
-  std::string bingham(const double M)
-  {
-    return R"(subsection Rheology
-  set Viscosity law = Bingham
-  subsection Bingham
-    set Plastic viscosity = 1
-    set Yield stress = 0.5
-    set Regularization exponent = )" + std::to_string(M) + R"(
-  end
-end
-)";
   }
 
   double relative(const double a, const double b)
@@ -110,7 +75,7 @@ TEST_P(PowerLawPipe, FlowRateAndWallForce)
   // ch. 3; from memory for the equation number): Q = (pi n/(3n+1)) R^3 (tau_w/K)^(1/n), R = 1 m,
   // tau_w = G R/2 = 1 Pa, K = 1 Pa s^n.
   const double Q      = M_PI * n / (3. * n + 1.);
-  const auto   result = run_case("power_law_pipe_n" + std::to_string(n), pipe_case(power_law(n), 3));
+  const auto   result = run_case("power_law_pipe_n" + std::to_string(n), pressure_driven_pipe(power_law(n), 3));
   ASSERT_TRUE(result.converged) << result.reason;
   EXPECT_LT(relative(result.number("flow rate out through outlet"), Q), 0.005) << "n = " << n;
   // Momentum balance (Bird, Stewart & Lightfoot 2002, sec. 2.3): F_z = -dp pi R^2 = -2 pi N, within 0.5%.
@@ -130,8 +95,8 @@ TEST(BinghamPipe, RegularizedFlowRateAndConvergenceToBuckinghamReiner)
   const double buckingham_reiner = buckingham_reiner_flow_rate(1., 1., 1., 0.5);
   const double regularized_10 = papanastasiou_bingham_pipe_flow_rate(1., 1., 1., 0.5, 10.);
   const double regularized_100 = papanastasiou_bingham_pipe_flow_rate(1., 1., 1., 0.5, 100.);
-  const auto coarse = run_case("bingham_pipe_10", pipe_case(bingham(10.), 3));
-  const auto sharp  = run_case("bingham_pipe_100", pipe_case(bingham(100.), 3));
+  const auto coarse = run_case("bingham_pipe_10", pressure_driven_pipe(bingham(10.), 3));
+  const auto sharp  = run_case("bingham_pipe_100", pressure_driven_pipe(bingham(100.), 3));
   ASSERT_TRUE(coarse.converged) << coarse.reason;
   ASSERT_TRUE(sharp.converged) << sharp.reason;
   const double q10 = coarse.number("flow rate out through outlet"), q100 = sharp.number("flow rate out through outlet");
@@ -154,8 +119,8 @@ TEST(BinghamPipe, EnergyLineSearchFindsTheSameSolution)
 {
   using namespace lentus::testing;
   const double regularized = papanastasiou_bingham_pipe_flow_rate(1., 1., 1., 0.5, 100.);
-  const auto   energy   = run_case("bingham_pipe_energy", pipe_case(bingham(100.), 3), {"Nonlinear solver/Line search=energy"});
-  const auto   residual = run_case("bingham_pipe_residual", pipe_case(bingham(100.), 3));
+  const auto   energy   = run_case("bingham_pipe_energy", pressure_driven_pipe(bingham(100.), 3), {"Nonlinear solver/Line search=energy"});
+  const auto   residual = run_case("bingham_pipe_residual", pressure_driven_pipe(bingham(100.), 3));
   ASSERT_TRUE(energy.converged) << energy.reason;
   ASSERT_TRUE(residual.converged) << residual.reason;
   const double q = energy.number("flow rate out through outlet");
@@ -163,7 +128,7 @@ TEST(BinghamPipe, EnergyLineSearchFindsTheSameSolution)
   EXPECT_LT(relative(q, residual.number("flow rate out through outlet")), 1e-6);
   // Primal Newton (with its Picard start) instead of the default primal-dual one (Chan, Golub &
   // Mulet 1999) changes the path, not the solution.
-  const auto primal = run_case("bingham_pipe_primal", pipe_case(bingham(100.), 3),
+  const auto primal = run_case("bingham_pipe_primal", pressure_driven_pipe(bingham(100.), 3),
                                {"Nonlinear solver/Newton linearization=primal"});
   ASSERT_TRUE(primal.converged) << primal.reason;
   EXPECT_LT(relative(primal.number("flow rate out through outlet"), q), 1e-6);
@@ -193,7 +158,7 @@ TEST(HerschelBulkleyPipe, FlowRate)
   end
 end
 )";
-  const auto result = run_case("herschel_bulkley_pipe", pipe_case(fluid, 4));
+  const auto result = run_case("herschel_bulkley_pipe", pressure_driven_pipe(fluid, 4));
   ASSERT_TRUE(result.converged) << result.reason;
   EXPECT_LT(relative(result.number("flow rate out through outlet"), exact), 0.005);
 }

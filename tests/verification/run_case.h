@@ -1,6 +1,7 @@
 // Runs a case given as text and returns its design numbers.
 #pragma once
 
+#include "../reference/viscoplastic.h"
 #include "solver/flow/flow_run.h"
 #include "solver/input/case_file.h"
 #include "solver/input/case_schema.h"
@@ -70,6 +71,72 @@ subsection Boundary conditions
   set No-slip = bottom wall, top wall
   set Pressure = inlet, outlet
   set Pressure values = )" + std::to_string(inlet_pressure) + R"(, 0
+end
+)";
+  }
+
+  /// A Bingham fluid, mu_p = 1 Pa s, yield stress `yield_stress` [Pa], Papanastasiou exponent M [s].
+  inline std::string bingham(const double M, const double yield_stress = 0.5)
+  {
+    return R"(subsection Rheology
+  set Viscosity law = Bingham
+  subsection Bingham
+    set Plastic viscosity = 1
+    set Yield stress = )" + std::to_string(yield_stress) + R"(
+    set Regularization exponent = )" + std::to_string(M) + R"(
+  end
+end
+)";
+  }
+
+  /// A pipe of radius 1 m and length 1 m (r z), driven by `pressure_drop` [Pa] from inlet to outlet,
+  /// after the `rheology` section: tau_w = pressure_drop R / (2 L).
+  inline std::string pressure_driven_pipe(const std::string &rheology, const int refinement,
+                                          const double pressure_drop = 2.)
+  {
+    return rheology + R"(
+subsection Geometry
+  set Shape = Pipe
+  set Refinement = )" + std::to_string(refinement) + R"(
+  subsection Pipe
+    set Radius = 1
+    set Length = 1
+  end
+end
+subsection Flow
+  set Velocity components = r z
+end
+subsection Boundary conditions
+  set No-slip = wall
+  set Axis = axis
+  set Pressure = inlet, outlet
+  set Pressure values = )" + std::to_string(pressure_drop) + R"(, 0
+end
+)";
+  }
+
+  /// A Bingham fluid (mu_p = 1 Pa s, tau_y = 1 Pa, M = 1000 s) between cylinders R_i = 1 m and
+  /// R_o = 2 m, 0.25 m high with symmetry ends, the inner one turning at `omega` [rad/s] (r z theta).
+  inline std::string bingham_couette_case(const double omega, const int refinement)
+  {
+    return bingham(1000., 1.) + R"(
+subsection Geometry
+  set Shape = Annular gap
+  set Refinement = )" + std::to_string(refinement) + R"(
+  subsection Annular gap
+    set Inner radius = 1
+    set Outer radius = 2
+    set Height = 0.25
+  end
+end
+subsection Flow
+  set Velocity components = r z theta
+end
+subsection Boundary conditions
+  set Moving wall = inner wall
+  set Rotation rate = )" + digits(omega) + R"(
+  set No-slip = outer wall
+  set Symmetry = bottom, top
 end
 )";
   }

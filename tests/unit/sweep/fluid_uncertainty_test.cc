@@ -6,6 +6,7 @@
 #include "solver/sweep/fluid_uncertainty.h"
 #include "solver/sweep/results_table.h"
 #include "solver/sweep/sweep_file.h"
+#include "sweep_parsing.h"
 
 #include <gmock/gmock.h>
 #include <gtest/gtest.h>
@@ -26,28 +27,18 @@ namespace
   using ::testing::HasSubstr;
   using ::testing::Not;
 
-  const std::string base_case = std::string(LENTUS_SOURCE_DIR) + "/tests/verification/cases/carreau_pipe.prm";
   const std::string n_key     = "Rheology/Carreau-Yasuda/Flow index";
   const std::string p_key     = "Boundary conditions/Pressure values";
   const std::string dp        = "pressure drop inlet to outlet";
 
-  sweep::SweepPlan parse(const std::string &text)
+  sweep::SweepPlan parse(const std::string &text, const std::vector<std::string> &sets = {})
   {
-    return sweep::parse_sweep_file("base case = " + base_case + "\n" + text, "test.sweep", sweep::SweepSettings(),
-                                   input::case_schema());
+    return lentus::testing::parse_sweep(text, sets);
   }
 
   std::string error_of(const std::string &text)
   {
-    try
-      {
-        parse(text);
-      }
-    catch (const InputError &error)
-      {
-        return error.what();
-      }
-    return "(no error)";
+    return lentus::testing::sweep_error_of(text);
   }
 
   /// A case list: `fitted` and samples sample-001 ... sample-NNN, with Flow index values.

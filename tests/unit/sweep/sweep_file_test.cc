@@ -5,6 +5,7 @@
 #include "solver/report/caution.h"
 #include "solver/sweep/results_table.h"
 #include "solver/sweep/sweep_file.h"
+#include "sweep_parsing.h"
 
 #include <gmock/gmock.h>
 #include <gtest/gtest.h>
@@ -23,27 +24,15 @@ namespace
   using namespace lentus;
   using ::testing::HasSubstr;
 
-  const std::string base_case = std::string(LENTUS_SOURCE_DIR) + "/tests/verification/cases/carreau_pipe.prm";
 
   sweep::SweepPlan parse(const std::string &text, const std::vector<std::string> &sets = {})
   {
-    sweep::SweepSettings settings;
-    settings.sets = sets;
-    return sweep::parse_sweep_file("base case = " + base_case + "\n" + text, "test.sweep", settings,
-                                   input::case_schema());
+    return lentus::testing::parse_sweep(text, sets);
   }
 
   std::string error_of(const std::string &text)
   {
-    try
-      {
-        parse(text);
-      }
-    catch (const InputError &error)
-      {
-        return error.what();
-      }
-    return "(no error)";
+    return lentus::testing::sweep_error_of(text);
   }
 
   std::string value_of(const sweep::SweepCase &sweep_case, const std::string &path)
