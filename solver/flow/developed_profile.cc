@@ -19,12 +19,27 @@ namespace lentus::flow
       low *= 0.1;
     if (law.stress(low) > tau)
       return 0.;
-    for (int i = 0; i < 80; ++i)
+    // Newton on ln tau(ln gamma_dot) = ln tau, whose slope is 1 + gamma_dot eta'/eta > 0, kept inside
+    // the bracket [low, high] by bisection in log space whenever a step would leave it or not shrink it.
+    const double target = std::log(tau);
+    double       x = 0.5 * (std::log(low) + std::log(high)), lower = std::log(low), upper = std::log(high);
+    for (int i = 0; i < 200 && upper - lower > 1e-15 * std::max(1., std::abs(x)); ++i)
       {
-        const double middle = std::sqrt(low * high);
-        (law.stress(middle) < tau ? low : high) = middle;
+        const double              rate = std::exp(x);
+        const rheology::Viscosity eta  = law.evaluate(rate);
+        const double              f    = std::log(eta.value * rate) - target;
+        if (f == 0.)
+          return rate;
+        (f < 0. ? lower : upper) = x;
+        const double slope = 1. + rate * eta.derivative / eta.value;
+        const double next  = x - f / slope;
+        const bool   inside = slope > 0. && next > lower && next < upper;
+        const double step   = inside ? next : 0.5 * (lower + upper);
+        if (std::abs(step - x) <= 1e-15 * std::max(1., std::abs(x)))
+          return std::exp(step);
+        x = step;
       }
-    return std::sqrt(low * high);
+    return std::exp(x);
   }
 
   namespace
