@@ -44,6 +44,10 @@ namespace lentus::rheology
        "log10 a_T = -C1 (T - T_ref) / (C2 + T - T_ref)  (Williams, Landel & Ferry 1955)",
        {{"C1", "C1", "-", "WLF constant C1", Range::above(0.)},
         {"C2", "C2", "K", "WLF constant C2; a_T is singular at T = T_ref - C2", Range::above(0.)},
+        reference_temperature_row}},
+      {"Exponential",
+       "a_T = exp(-beta (T - T_ref))",
+       {{"Temperature sensitivity", "beta", "1/K", "relative fall of the viscosity per kelvin", Range::at_least(0.)},
         reference_temperature_row}}};
     return shifts;
   }
@@ -75,6 +79,19 @@ namespace lentus::rheology
     return shift;
   }
 
+  TemperatureShift TemperatureShift::exponential(const double beta_, const double reference_temperature_)
+  {
+    const auto values = resolve_parameters(catalogue()[3].parameters,
+                                           {{"Temperature sensitivity", beta_},
+                                            {"Reference temperature", reference_temperature_}},
+                                           "temperature shift Exponential");
+    TemperatureShift shift;
+    shift.shift_kind            = Kind::exponential;
+    shift.beta                  = values[0];
+    shift.reference_temperature = values[1];
+    return shift;
+  }
+
   TemperatureShift TemperatureShift::create(const std::string &name, const ParameterValues &values)
   {
     for (const ShiftInfo &info : catalogue())
@@ -85,9 +102,11 @@ namespace lentus::rheology
             return arrhenius(resolved[0], resolved[1]);
           if (name == "WLF")
             return wlf(resolved[0], resolved[1], resolved[2]);
+          if (name == "Exponential")
+            return exponential(resolved[0], resolved[1]);
           return TemperatureShift();
         }
-    throw InvalidParameter("Temperature shift", name, "unknown temperature shift", "one of none, Arrhenius, WLF");
+    throw InvalidParameter("Temperature shift", name, "unknown temperature shift", "one of none, Arrhenius, WLF, Exponential");
   }
 
   double TemperatureShift::factor(const double temperature) const
@@ -99,6 +118,16 @@ namespace lentus::rheology
                              "a finite temperature > 0 K");
     if (shift_kind == Kind::arrhenius)
       return std::exp(activation_energy / gas_constant * (1. / temperature - 1. / reference_temperature));
+    if (shift_kind == Kind::exponential)
+      {
+        const double factor = std::exp(-beta * (temperature - reference_temperature));
+        if (!(factor > 0.) || !std::isfinite(factor))
+          throw InvalidParameter("Temperature", format_value(temperature),
+                                 "so far from the reference temperature that a_T = exp(-beta (T - T_ref)) is 0 or "
+                                 "overflows",
+                                 "a temperature nearer T_ref = " + format_short(reference_temperature) + " K");
+        return factor;
+      }
 
     // The WLF law is singular at T = T_ref - C2; near it a_T overflows.
     const double difference = temperature - reference_temperature;
@@ -112,6 +141,20 @@ namespace lentus::rheology
                              "so close to the WLF singularity T_ref - C2 = " + singular + " K that a_T overflows",
                              "T > " + singular + " K, well clear of it");
     return factor;
+  }
+
+  double TemperatureShift::log_slope(const double temperature) const
+  {
+    if (shift_kind == Kind::none)
+      return 0.;
+    factor(temperature); // the same checks of the domain
+    if (shift_kind == Kind::arrhenius)
+      return -activation_energy / (gas_constant * temperature * temperature);
+    if (shift_kind == Kind::exponential)
+      return -beta;
+    // d/dT [-ln10 C1 x / (C2 + x)] with x = T - T_ref
+    const double denominator = c2 + temperature - reference_temperature;
+    return -std::log(10.) * c1 * c2 / (denominator * denominator);
   }
 
   std::unique_ptr<ViscosityLaw> shifted(std::shared_ptr<const ViscosityLaw> law, const double shift_factor)

@@ -32,7 +32,8 @@ namespace lentus::rheology
     {
       none,
       arrhenius,
-      wlf
+      wlf,
+      exponential
     };
 
     /// a_T = 1.
@@ -45,21 +46,29 @@ namespace lentus::rheology
     /// Williams, Landel & Ferry 1955, J. Am. Chem. Soc. 77:3701.
     static TemperatureShift wlf(double c1, double c2, double reference_temperature);
 
-    /// The shift named `name` ("none", "Arrhenius", "WLF") from values by key.
+    /// a_T = exp(-beta (T - T_ref)); beta [1/K] >= 0, T_ref [K] > 0. The exponential (Reynolds) form
+    /// that die designers use over a narrow temperature window.
+    static TemperatureShift exponential(double beta, double reference_temperature);
+
+    /// The shift named `name` ("none", "Arrhenius", "WLF", "Exponential") from values by key.
     static TemperatureShift create(const std::string &name, const ParameterValues &values);
 
-    /// The three shift laws with their parameter tables.
+    /// The shift laws with their parameter tables.
     static const std::vector<ShiftInfo> &catalogue();
 
     /// a_T at temperature T [K]. Throws InvalidParameter (key "Temperature")
     /// for T <= 0 K, non-finite T, or (WLF) T at or below T_ref - C2.
     double factor(double temperature) const;
 
+    /// d ln a_T / d T [1/K] at temperature T (<= 0: viscosity falls as T rises); 0 without shift.
+    /// Same domain as factor().
+    double log_slope(double temperature) const;
+
     Kind kind() const { return shift_kind; }
 
   private:
     Kind   shift_kind = Kind::none;
-    double activation_energy = 0., c1 = 0., c2 = 0., reference_temperature = 0.;
+    double activation_energy = 0., c1 = 0., c2 = 0., beta = 0., reference_temperature = 0.;
   };
 
   /// The law `law` at a temperature with shift factor a_T > 0:

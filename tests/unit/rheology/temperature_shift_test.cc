@@ -95,3 +95,33 @@ TEST(TemperatureShift, BadTemperatures)
   EXPECT_THROW(arrhenius.factor(HUGE_VAL), InvalidParameter);
   EXPECT_EQ(TemperatureShift().factor(std::nan("")), 1.); // no shift: temperature not needed
 }
+
+TEST(TemperatureShift, ExponentialValueAndSlope)
+{
+  // Exponential shift a_T = exp(-beta (T - T_ref)), the first-order form of any shift about T_ref
+  // (its log slope is -beta by definition); values computed here from the formula.
+  const auto shift = TemperatureShift::exponential(0.02, 473.15);
+  EXPECT_NEAR(shift.factor(483.15), std::exp(-0.2), 1e-14);
+  EXPECT_DOUBLE_EQ(shift.factor(473.15), 1.);
+  EXPECT_DOUBLE_EQ(shift.log_slope(500.), -0.02);
+  EXPECT_THROW(shift.factor(-1.), InvalidParameter);
+  EXPECT_THROW(TemperatureShift::exponential(-0.1, 473.15), InvalidParameter);
+  const auto created = TemperatureShift::create("Exponential", {{"Temperature sensitivity", 0.03},
+                                                                {"Reference temperature", 450.}});
+  EXPECT_NEAR(created.factor(460.), std::exp(-0.3), 1e-14);
+}
+
+TEST(TemperatureShift, LogSlopeMatchesFiniteDifferences)
+{
+  // d ln a_T / dT of every shift against a central difference of ln a_T (the formulas of
+  // Arrhenius and of Williams, Landel & Ferry 1955, differentiated in temperature_shift.cc).
+  const double h = 1e-3;
+  for (const TemperatureShift &shift : {TemperatureShift::arrhenius(60e3, 470.), TemperatureShift::wlf(8.86, 101.6, 400.),
+                                        TemperatureShift::exponential(0.015, 480.), TemperatureShift()})
+    for (const double t : {430., 480., 520.})
+      {
+        const double difference = (std::log(shift.factor(t + h)) - std::log(shift.factor(t - h))) / (2. * h);
+        EXPECT_NEAR(shift.log_slope(t), difference, 1e-7 * std::max(1e-3, std::abs(difference))) << t;
+      }
+  EXPECT_EQ(TemperatureShift().log_slope(300.), 0.);
+}
