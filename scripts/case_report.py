@@ -59,7 +59,7 @@ details { margin: 0.5em 0; } summary { cursor: pointer; }
 @media print { .pictures { grid-template-columns: 1fr 1fr 1fr; } pre { max-height: none; } }
 """
 
-GROUP_TITLES = {"flow": "Flow", "die": "Die", "vessel": "Vessel", "energy": "Energy", "regions": "Regions"}
+GROUP_TITLES = {"flow": "Flow", "die": "Die", "vessel": "Vessel", "energy": "Energy", "regions": "Regions", "heat": "Heat"}
 
 
 def _escape(value):

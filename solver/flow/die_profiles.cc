@@ -1,6 +1,7 @@
 // Profiles of a die as CSV: the velocity across the exit, and the wall shear rate and stress
 // along every no-slip wall (for the land: the developed values, the entry overshoot and the exit).
 #include "solver/flow/fields.h"
+#include "solver/flow/heat.h"
 
 #include "solver/formulation/kinematics.h"
 
@@ -112,8 +113,12 @@ namespace lentus::flow
                       const Point<2>    &x = face_values.quadrature_point(q);
                       const Kinematics   u = kinematics(state.physics.kind, x, &values[q][0], gradients[q].data());
                       const double       rate = shear_rate(u.L);
-                      rows.push_back({{static_cast<double>(w), x[axial], x[0], x[1], rate,
-                                       state.physics.law->evaluate(rate).value * rate}});
+                      const double eta =
+                        state.physics.heat && state.physics.heat->coupled ?
+                          viscosity_at_point(state.physics, cell,
+                                             face_values.get_mapping().transform_real_to_unit_cell(cell, x), rate).value :
+                          state.physics.law->evaluate(rate).value;
+                      rows.push_back({{static_cast<double>(w), x[axial], x[0], x[1], rate, eta * rate}});
                     }
                 }
       }

@@ -1,6 +1,7 @@
 // Field output: the solution and derived fields as VTU/PVTU/PVD.
 #include "solver/flow/fields.h"
 
+#include "solver/flow/heat.h"
 #include "solver/flow/vessel_integrals.h"
 
 #include <deal.II/base/quadrature_lib.h>
@@ -32,7 +33,9 @@ namespace lentus::flow
       void evaluate_vector_field(const DataPostprocessorInputs::Vector<2> &inputs,
                                  std::vector<dealii::Vector<double>> &computed) const override
       {
-        const double tau_y = state.physics.law->yield_stress();
+        const double tau_y   = state.physics.law->yield_stress();
+        const bool   thermal = state.physics.heat && state.physics.heat->coupled;
+        const MappingQ1<2> mapping;
         for (unsigned int q = 0; q < inputs.solution_values.size(); ++q)
           {
             double       values[3];
@@ -47,7 +50,12 @@ namespace lentus::flow
             const Point<2>     at(is_axisymmetric(state.physics.kind) ? std::max(x[0], 1e-12) : x[0], x[1]);
             const Kinematics   u         = kinematics(state.physics.kind, at, values, gradients);
             const double       gamma_dot = shear_rate(u.L);
-            const double       eta       = state.physics.law->evaluate(gamma_dot).value;
+            // With the energy equation, the viscosity at the point's temperature.
+            const double eta =
+              thermal ? viscosity_at_point(state.physics, inputs.template get_cell<2>(),
+                                           mapping.transform_real_to_unit_cell(inputs.template get_cell<2>(), x), gamma_dot)
+                          .value :
+                        state.physics.law->evaluate(gamma_dot).value;
             computed[q](0)               = gamma_dot;
             computed[q](1)               = eta;
             computed[q](2)               = eta * gamma_dot;
@@ -98,6 +106,8 @@ namespace lentus::flow
       if (cell->is_locally_owned())
         partition(cell->active_cell_index()) = static_cast<float>(state.mesh.rank);
     data_out.add_data_vector(partition, "partition");
+    if (state.physics.heat && state.physics.heat->solved)
+      data_out.add_data_vector(state.physics.heat->dof_handler, state.physics.heat->temperature, "temperature");
     data_out.build_patches(state.mesh.fe.degree);
     const std::string record = data_out.write_vtu_with_pvtu_record(folder + "/", "fields", 0, state.mesh.comm, 2, 0);
     if (state.mesh.rank == 0)

@@ -5,6 +5,7 @@
 #include "rheology/law_registry.h"
 #include "solver/errors.h"
 #include "solver/flow/flow_state.h"
+#include "solver/flow/heat.h"
 
 #include <deal.II/base/quadrature_lib.h>
 #include <deal.II/base/timer.h>
@@ -52,12 +53,14 @@ namespace lentus::flow
       const unsigned int     n_components = state.physics.n_velocity + 1;
       std::vector<dealii::Vector<double>>             values(samples.size(), dealii::Vector<double>(n_components));
       std::vector<std::vector<Tensor<1, 2>>>          gradients(samples.size(), std::vector<Tensor<1, 2>>(n_components));
+      LocalTemperature local(state.physics, samples);
       for (const auto &cell : state.mesh.dof_handler.active_cell_iterators())
         if (cell->is_locally_owned())
           {
             fe_values.reinit(cell);
             fe_values.get_function_values(state.solution, values);
             fe_values.get_function_gradients(state.solution, gradients);
+            local.reinit(cell);
             double lowest = HUGE_VAL, highest = -HUGE_VAL, nearest = HUGE_VAL;
             for (unsigned int q = 0; q < samples.size(); ++q)
               {
@@ -73,7 +76,7 @@ namespace lentus::flow
                 const Point<2>   at(is_axisymmetric(state.physics.kind) ? std::max(x[0], 1e-12) : x[0], x[1]);
                 const Kinematics k         = kinematics(state.physics.kind, at, u, grad_u);
                 const double     gamma_dot = shear_rate(k.L);
-                const double     margin    = state.physics.law->evaluate(gamma_dot).value * gamma_dot / tau_y - 1.;
+                const double     margin    = local.viscosity(*state.physics.law, gamma_dot, q).value * gamma_dot / tau_y - 1.;
                 lowest                     = std::min(lowest, margin);
                 highest                    = std::max(highest, margin);
                 nearest                    = std::min(nearest, std::abs(margin));
@@ -286,6 +289,8 @@ namespace lentus::flow
                          std::to_string(state.mesh.dof_handler.n_dofs()) + " unknowns" +
                          format(" (indicator and refinement %.2f s)", timer.wall_time()));
           outcome.converged = solve_from_current(state, state.physics, outcome, "adaptive cycle " + std::to_string(cycle));
+          if (outcome.converged && state.physics.heat)
+            outcome.converged = solve_coupled_heat(state, outcome);
           if (outcome.converged)
             {
               Timer numbers_timer;

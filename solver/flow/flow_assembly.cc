@@ -18,6 +18,7 @@
 //         + rho 2 Omega (e_z x U_d) . U_v                     (4a')
 //         - p_d tr L_v - q tr L_d ] w dx                      (3') (6')
 #include "solver/flow/flow_state.h"
+#include "solver/flow/heat.h"
 
 #include <deal.II/base/quadrature_lib.h>
 #include <deal.II/fe/fe_values.h>
@@ -121,6 +122,8 @@ namespace lentus::flow
     FullMatrix<double>                   pressure_mass(n_pressure, n_pressure);
     std::vector<types::global_dof_index> pressure_indices(n_pressure);
 
+    // With the energy equation coupled, the viscosity at each point's temperature.
+    LocalTemperature local(physics, quadrature);
     std::map<types::boundary_id, double> set_pressure;
     for (const input::BoundaryCondition &bc : physics.flow.conditions)
       if (bc.type == input::BoundaryCondition::Type::pressure)
@@ -167,6 +170,7 @@ namespace lentus::flow
         cell->get_dof_indices(dof_indices);
         fe_values.get_function_values(evaluation_point, values);
         fe_values.get_function_gradients(evaluation_point, gradients);
+        local.reinit(cell);
         cell_matrix   = 0.;
         pressure_mass = 0.;
         cell_residual = 0.;
@@ -179,7 +183,7 @@ namespace lentus::flow
             const Kinematics   u = kinematics(kind, x, &values[q][0], gradients[q].data());
             const Mandel       D = mandel_of_strain(u.L);
             const double       gamma_dot = std::sqrt(2. * dot(D, D));
-            const auto         eta       = physics.law->evaluate(gamma_dot);
+            const auto         eta       = local.viscosity(*physics.law, gamma_dot, q);
             const double       p         = values[q][n_velocity];
             const double       divergence = trace(u.L);
             const Tensor<1, 3> convection = u.L * u.U;

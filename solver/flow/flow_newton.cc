@@ -6,6 +6,7 @@
 #include "rheology/shift/temperature_shift.h"
 #include "solver/errors.h"
 #include "solver/flow/flow_state.h"
+#include "solver/flow/heat.h"
 #include "solver/flow/mesh_sequencing.h"
 
 #include <deal.II/base/timer.h>
@@ -477,7 +478,15 @@ namespace lentus::flow
           outcome.reason    = error.what();
         }
     };
-    attempt([&] { solve_nonlinear(state, outcome); });
+    // With the energy equation, each mesh's flow at the melt temperature is followed by the coupled solve.
+    const auto with_heat = [&] {
+      if (outcome.converged && state.physics.heat)
+        outcome.converged = solve_coupled_heat(state, outcome);
+    };
+    attempt([&] {
+      solve_nonlinear(state, outcome);
+      with_heat();
+    });
     record_numbers(state, outcome);
     for (unsigned int remaining = levels; remaining > 0; --remaining)
       {
@@ -488,12 +497,18 @@ namespace lentus::flow
         outcome.history.add_mesh_seconds(timer.wall_time());
         log_mesh(state, remaining > 1 ? "Finer " : "Final ");
         if (follow)
-          attempt([&] { outcome.converged = solve_from_interpolated(state, outcome); });
+          attempt([&] {
+            outcome.converged = solve_from_interpolated(state, outcome);
+            with_heat();
+          });
         if (!outcome.converged && remaining == 1)
           {
             // Sequencing failed: solve the final mesh from rest, as without mesh sequencing.
             state.log.line("  mesh sequencing did not converge (" + outcome.reason + "); solving from rest");
-            attempt([&] { solve_nonlinear(state, outcome); });
+            attempt([&] {
+              solve_nonlinear(state, outcome);
+              with_heat();
+            });
           }
         record_numbers(state, outcome);
       }

@@ -1,6 +1,7 @@
 // Point values and error norms of a solved flow.
 #include "solver/flow/flow_run.h"
 #include "solver/flow/flow_state.h"
+#include "solver/flow/heat.h"
 
 #include <deal.II/base/quadrature_lib.h>
 #include <deal.II/fe/fe_values.h>
@@ -46,6 +47,37 @@ namespace lentus::flow
     for (unsigned int c = 0; c < n_components; ++c)
       values[c] = sums[c] / sums[n_components];
     return values;
+  }
+
+  double FlowRun::temperature_at(const Point<2> &x) const
+  {
+    const HeatField *heat = state->physics.heat.get();
+    if (!heat || !heat->solved)
+      throw std::logic_error("no temperature field: the case was not solved with Heat/Energy equation = true");
+    double             sums[2] = {0., 0.}; // temperature, number of ranks that found x
+    const MappingQ1<2> mapping;
+    try
+      {
+        const auto found = GridTools::find_active_cell_around_point(mapping, heat->dof_handler, x);
+        if (found.first->is_locally_owned())
+          {
+            const Quadrature<2> at_point(GeometryInfo<2>::project_to_unit_cell(found.second));
+            FEValues<2>         fe_values(mapping, heat->fe, at_point, update_values);
+            fe_values.reinit(found.first);
+            std::vector<double> value(1);
+            fe_values.get_function_values(heat->temperature, value);
+            sums[0] = value[0];
+            sums[1] = 1.;
+          }
+      }
+    catch (const std::exception &)
+      {
+        // x is not in a cell this rank knows; another rank has it.
+      }
+    Utilities::MPI::sum(ArrayView<const double>(sums, 2), state->mesh.comm, ArrayView<double>(sums, 2));
+    if (sums[1] < 1.)
+      throw std::out_of_range("point outside the flow domain");
+    return sums[0] / sums[1];
   }
 
   double FlowRun::velocity_error(const std::function<Tensor<1, 2>(const Point<2> &)> &exact) const

@@ -55,6 +55,10 @@ namespace lentus::flow
     /// for an exact velocity given in mesh components. Collective.
     double velocity_error(const std::function<dealii::Tensor<1, 2>(const dealii::Point<2> &)> &exact) const;
 
+    /// Temperature [K] at x of a case solved with the energy equation. Collective. Throws
+    /// std::logic_error without a temperature field, std::out_of_range if x is outside the mesh.
+    double temperature_at(const dealii::Point<2> &x) const;
+
   private:
     std::unique_ptr<FlowState> state;
     RunResult                  run_result;

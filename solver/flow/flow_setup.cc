@@ -2,6 +2,7 @@
 #include "solver/errors.h"
 #include "solver/flow/developed_profile.h"
 #include "solver/flow/flow_state.h"
+#include "solver/flow/heat.h"
 
 #include <deal.II/base/function.h>
 #include <deal.II/base/utilities.h>
@@ -34,6 +35,7 @@ namespace lentus::flow
     , law(flow_case.fluid.law)
     , density(flow_case.model.inertia || flow_case.model.gravity[0] != 0. || flow_case.model.gravity[1] != 0. ? flow_case.fluid.density.value() :
                                                                                              0.)
+    , heat(make_heat_field(flow_case))
   {}
 
   Discretization::Discretization(const input::FlowCase &flow_case, MPI_Comm communicator)
@@ -438,6 +440,7 @@ namespace lentus::flow
     state.system.pressure_mass.reinit(state.mesh.owned, state.mesh.owned, pressure_pattern, state.mesh.comm);
     state.system.residual.reinit(state.mesh.owned, state.mesh.comm);
     state.solution.reinit(state.mesh.owned, state.mesh.relevant, state.mesh.comm);
+    setup_heat(state);
   }
 
   void initial_solution(FlowState &state)

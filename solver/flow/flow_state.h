@@ -56,6 +56,8 @@ namespace lentus::flow
     std::ostringstream record;
   };
 
+  struct HeatField;
+
   /// What is solved: the case, its formulation, the fluid's law and the density. Passed const;
   /// a continuation step solves a softened copy and leaves the case's physics as it is.
   struct Physics
@@ -67,6 +69,9 @@ namespace lentus::flow
     unsigned int                                  n_velocity; ///< 2, or 3 with swirl
     std::shared_ptr<const rheology::ViscosityLaw> law;
     double                                        density = 0.; ///< 0 when neither inertia nor gravity
+    /// The temperature field with Heat/Energy equation (shared by the copies a continuation or the
+    /// regularization check makes), else null. heat.h.
+    std::shared_ptr<HeatField> heat;
   };
 
   /// The discretization: mesh, finite elements, unknowns and their constraints.
@@ -145,6 +150,10 @@ namespace lentus::flow
   void renumber_node_wise(FlowState &state);
   /// The initial iterate: zero with the Dirichlet values.
   void initial_solution(FlowState &state);
+
+  // heat.cc
+  /// The case's temperature field, unset until setup_dofs(); null without Heat/Energy equation.
+  std::shared_ptr<HeatField> make_heat_field(const input::FlowCase &flow);
 
   // flow_assembly.cc
   enum class Linearization

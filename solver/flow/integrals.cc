@@ -1,6 +1,7 @@
 // Integrals over cells and boundary roles, and reactions by role.
 #include "solver/flow/integrals.h"
 
+#include "solver/flow/heat.h"
 #include "solver/flow/vessel_integrals.h"
 #include "solver/formulation/formulation.h"
 
@@ -36,6 +37,7 @@ namespace lentus::flow
       std::vector<std::vector<Tensor<1, 2>>> gradients(quadrature.size(),
                                                        std::vector<Tensor<1, 2>>(state.physics.n_velocity + 1));
       const double tau_y     = state.physics.law->yield_stress();
+      LocalTemperature local(state.physics, quadrature);
       double       sums[5]   = {0., 0., 0., 0., 0.}; // area, volume, dissipation, unyielded area, unyielded volume
       double       max_speed = 0.;
       for (const auto &cell : state.mesh.dof_handler.active_cell_iterators())
@@ -44,13 +46,14 @@ namespace lentus::flow
             fe_values.reinit(cell);
             fe_values.get_function_values(state.solution, values);
             fe_values.get_function_gradients(state.solution, gradients);
+            local.reinit(cell);
             for (unsigned int q = 0; q < quadrature.size(); ++q)
               {
                 const Point<2>  &x         = fe_values.quadrature_point(q);
                 const double     w         = volume_weight(state.physics.kind, x) * fe_values.JxW(q);
                 const Kinematics u         = kinematics(state.physics.kind, x, &values[q][0], gradients[q].data());
                 const double     gamma_dot = shear_rate(u.L);
-                const double     eta       = state.physics.law->evaluate(gamma_dot).value;
+                const double     eta       = local.viscosity(*state.physics.law, gamma_dot, q).value;
                 sums[0] += fe_values.JxW(q);
                 sums[1] += w;
                 sums[2] += eta * gamma_dot * gamma_dot * w; // 2 eta D:D = eta gamma_dot^2

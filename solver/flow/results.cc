@@ -1,5 +1,6 @@
 #include "solver/flow/results.h"
 
+#include "solver/flow/heat.h"
 #include "solver/flow/integrals.h"
 #include "solver/flow/vessel_integrals.h"
 #include "solver/report/numbers.h"
@@ -41,7 +42,18 @@ namespace lentus::flow
       if (has_impeller(state) && !is_axisymmetric(state.physics.kind))
         cautions.emplace_back("A planar section of a vessel ignores the axial flow and the ends of the impeller: "
                               "torque and power are per metre of depth of an idealized, infinitely long impeller.");
-      if (!flow.geometry->straight_sections().empty() && numbers.find("pressure drop inlet to outlet"))
+      const bool die = !flow.geometry->straight_sections().empty() && numbers.find("pressure drop inlet to outlet");
+      if (flow.heat.energy_equation)
+        cautions.emplace_back(
+          "Temperatures from the energy equation with constant density, heat capacity and conductivity, the "
+          "viscosity following the temperature through the case's temperature shift; the die body, heaters and "
+          "surroundings enter only through the thermal conditions of the case's roles." +
+          std::string(die ? " The die pressure drop covers only the modelled barrel and die with its heating; "
+                            "screens, adapters and the melt's pressure dependence are not included. Developed-flow "
+                            "values and the entrance loss are those of the isothermal melt at " +
+                              rheology::format_short(*flow.fluid.temperature) + " K." :
+                            ""));
+      else if (die)
         cautions.emplace_back(
           "The die pressure drop covers only the modelled barrel and die, at one uniform temperature (" +
           (!flow.fluid.temperature ? std::string("the fluid's reference temperature") :
@@ -77,6 +89,7 @@ namespace lentus::flow
                                      numbers);
         }
       report::add_energy_and_region_numbers(formulation, state.physics.law->yield_stress(), integrals, numbers);
+      add_heat_numbers(state, numbers);
       mark_default_key_numbers(numbers);
       return numbers;
     }

@@ -4,6 +4,8 @@
 // sampled on a grid of points in each cell and averaged where cells share a point.
 #include "solver/flow/vessel_integrals.h"
 
+#include "solver/flow/heat.h"
+
 #include <deal.II/base/mpi.h>
 #include <deal.II/base/quadrature_lib.h>
 #include <deal.II/fe/fe_values.h>
@@ -96,12 +98,14 @@ namespace lentus::flow
                                                          update_values | update_gradients | update_quadrature_points);
     std::vector<dealii::Vector<double>>    grid_values(grid.size(), dealii::Vector<double>(state.physics.n_velocity + 1));
     std::vector<std::vector<Tensor<1, 2>>> grid_gradients(grid.size(), std::vector<Tensor<1, 2>>(state.physics.n_velocity + 1));
+    LocalTemperature local(state.physics, quadrature), local_samples(state.physics, sample_rule);
     for (const auto &cell : state.mesh.dof_handler.active_cell_iterators())
       if (cell->is_locally_owned())
         {
           fe_values.reinit(cell);
           fe_values.get_function_values(state.solution, values);
           fe_values.get_function_gradients(state.solution, gradients);
+          local.reinit(cell);
           CellRecord record{};
           for (unsigned int q = 0; q < quadrature.size(); ++q)
             {
@@ -109,7 +113,7 @@ namespace lentus::flow
               const double       w = volume_weight(state.physics.kind, x) * fe_values.JxW(q);
               const Kinematics   u = kinematics(state.physics.kind, x, &values[q][0], gradients[q].data());
               const double       gamma_dot = shear_rate(u.L);
-              const bool         unyielded  = tau_y > 0. && state.physics.law->evaluate(gamma_dot).value * gamma_dot < tau_y;
+              const bool         unyielded  = tau_y > 0. && local.viscosity(*state.physics.law, gamma_dot, q).value * gamma_dot < tau_y;
               const double       speed      = fixed_frame_velocity(state, x, u.U).norm();
               const bool         dead       = unyielded || speed < flow.vessel.dead_zone_fraction * tip_speed;
               sums[0] += fe_values.JxW(q);
@@ -130,6 +134,7 @@ namespace lentus::flow
               sample_values.reinit(cell);
               sample_values.get_function_values(state.solution, grid_values);
               sample_values.get_function_gradients(state.solution, grid_gradients);
+              local_samples.reinit(cell);
               for (unsigned int k = 0; k < grid.size(); ++k)
                 {
                   const Point<2>    &x = sample_values.quadrature_point(k);
@@ -137,7 +142,7 @@ namespace lentus::flow
                   const double       gamma_dot = shear_rate(u.L);
                   record[sample_grid + 3 * k]     = x[0];
                   record[sample_grid + 3 * k + 1] = x[1];
-                  record[sample_grid + 3 * k + 2] = state.physics.law->evaluate(gamma_dot).value * gamma_dot - tau_y;
+                  record[sample_grid + 3 * k + 2] = local_samples.viscosity(*state.physics.law, gamma_dot, k).value * gamma_dot - tau_y;
                 }
             }
           for (const auto face_no : cell->face_indices())

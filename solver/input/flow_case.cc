@@ -70,6 +70,7 @@ namespace lentus::input
     declare_section<NonlinearSolverSection>(schema, "Nonlinear solver");
     declare_section<LinearSolverSection>(schema, "Linear solver");
     declare_section<AccuracySection>(schema, "Accuracy");
+    declare_section<HeatSection>(schema, "Heat");
     declare_section<OutputSection>(schema, "Output");
   }
 
@@ -142,6 +143,25 @@ namespace lentus::input
 
   namespace
   {
+    /// Hands out the values of a list key one role at a time; `finish` checks that none is left.
+    struct Values
+    {
+      const std::vector<double> &values;
+      std::string                key, roles_under, what;
+      std::size_t                next = 0;
+      double take(const CaseFile &file)
+      {
+        if (next >= values.size())
+          file.fail(key, "fewer values than roles under " + roles_under, "one " + what + " per role, in order");
+        return values[next++];
+      }
+      void finish(const CaseFile &file) const
+      {
+        if (next != values.size())
+          file.fail(key, "more values than roles under " + roles_under, "one " + what + " per role, in order");
+      }
+    };
+
     /// The conditions by role of `flow`'s geometry from its Boundary conditions section: every listed
     /// role exists, every role gets exactly one condition, and the values match the roles.
     void assign_conditions(const CaseFile &file, FlowCase &flow)
@@ -172,24 +192,6 @@ namespace lentus::input
         for (double &rate : inflow_rates)
           rate *= 1. / *flow.fluid.density;
 
-      /// Hands out the values of a list key one role at a time; `finish` checks that none is left.
-      struct Values
-      {
-        const std::vector<double> &values;
-        std::string                key, roles_under, what;
-        std::size_t                next = 0;
-        double take(const CaseFile &file)
-        {
-          if (next >= values.size())
-            file.fail(key, "fewer values than roles under " + roles_under, "one " + what + " per role, in order");
-          return values[next++];
-        }
-        void finish(const CaseFile &file) const
-        {
-          if (next != values.size())
-            file.fail(key, "more values than roles under " + roles_under, "one " + what + " per role, in order");
-        }
-      };
       Values pressures{keys.pressures, conditions + "Pressure values", "Pressure", "pressure [Pa]"};
       Values rates{inflow_rates, rates_key, "Inflow", "flow rate"};
       Values speeds{keys.inflow_speeds, conditions + "Inflow speeds", "Uniform inflow", "speed [m/s]"};
@@ -244,6 +246,106 @@ namespace lentus::input
     }
   } // namespace
 
+  namespace
+  {
+    /// The thermal conditions by role from subsection Heat (only with Heat/Energy equation = true):
+    /// every listed role exists, every role gets exactly one, the values match the roles, and the
+    /// fluid has what the energy equation needs.
+    void assign_thermal_conditions(const CaseFile &file, FlowCase &flow)
+    {
+      const std::string  heat = "Heat/";
+      const HeatSection &keys = flow.heat;
+      const auto        &condition_list = thermal_condition_keys();
+      if (!keys.energy_equation)
+        {
+          for (std::size_t c = 0; c < condition_list.size(); ++c)
+            if (!keys.roles[c].empty())
+              file.fail(heat + condition_list[c].key, "thermal conditions are set, but Heat/Energy equation = false",
+                        "Energy equation = true, or no thermal conditions");
+          return;
+        }
+      const Fluid &fluid = flow.fluid;
+      if (!fluid.thermal_conductivity)
+        file.fail("Rheology/Thermal conductivity", "missing; the energy equation (Heat/Energy equation) needs it",
+                  "k > 0 [W/(m K)]");
+      if (!fluid.heat_capacity)
+        file.fail("Rheology/Heat capacity", "missing; the energy equation (Heat/Energy equation) needs it",
+                  "c_p > 0 [J/(kg K)]");
+      if (!fluid.density)
+        file.fail("Rheology/Density", "missing; the energy equation (Heat/Energy equation) needs it",
+                  "a density > 0 kg/m^3");
+      if (!fluid.temperature)
+        file.fail("Operating point/Temperature",
+                  "missing; the energy equation needs the melt's temperature (inlets, start, isothermal comparison)",
+                  "a temperature > 0 K");
+
+      const std::string shape_name = flow.mesh_file.empty() ? "shape " + flow.geometry_keys.shape :
+                                                              "Gmsh mesh " + flow.gmsh_keys.file;
+      const auto        roles      = flow.geometry->role_names();
+      std::string       role_list, key_list;
+      for (const std::string &role : roles)
+        role_list += (role_list.empty() ? "" : ", ") + role;
+      for (const ThermalConditionKey &condition : condition_list)
+        key_list += (key_list.empty() ? "" : ", ") + std::string(condition.key);
+
+      const std::vector<double> melt(keys.roles[3].size(), *fluid.temperature);
+      Values walls{keys.wall_temperatures, heat + "Wall temperatures", "Set temperature", "temperature [K]"};
+      Values coefficients{keys.transfer_coefficients, heat + "Heat transfer coefficients", "Heat transfer",
+                          "coefficient [W/(m^2 K)]"};
+      Values surroundings{keys.surrounding_temperatures, heat + "Surrounding temperatures", "Heat transfer",
+                          "temperature [K]"};
+      Values inlets{keys.inlet_temperatures.empty() ? melt : keys.inlet_temperatures, heat + "Inlet temperatures",
+                    "Inlet temperature", "temperature [K]"};
+
+      std::map<std::string, std::string> assigned;
+      for (std::size_t c = 0; c < condition_list.size(); ++c)
+        {
+          const ThermalConditionKey &condition = condition_list[c];
+          const std::string          key       = heat + condition.key;
+          for (const std::string &role : keys.roles[c])
+            {
+              if (std::find(roles.begin(), roles.end(), role) == roles.end())
+                file.fail(key, "'" + role + "' is not a boundary role of " + shape_name, "role names among " + role_list);
+              if (assigned.count(role))
+                file.fail(key, "role '" + role + "' already has a thermal condition (" + assigned[role] + ")",
+                          "one thermal condition per role");
+              assigned[role] = condition.key;
+              const auto flow_condition =
+                std::find_if(flow.conditions.begin(), flow.conditions.end(), [&](const auto &bc) { return bc.role == role; });
+              using Flow = BoundaryCondition::Type;
+              const bool crossed = flow_condition != flow.conditions.end() &&
+                                   (flow_condition->type == Flow::pressure || flow_condition->type == Flow::traction_free ||
+                                    flow_condition->type == Flow::inflow || flow_condition->type == Flow::uniform_inflow);
+              if ((condition.type == ThermalCondition::Type::inlet || condition.type == ThermalCondition::Type::outflow) &&
+                  !crossed)
+                file.fail(key, "role '" + role + "' is not crossed by the flow (its flow condition is not Pressure, "
+                               "Traction-free, Inflow or Uniform inflow)",
+                          "roles where fluid enters or leaves; walls get Set temperature, Insulated or Heat transfer");
+              ThermalCondition bc{role, condition.type};
+              if (condition.type == ThermalCondition::Type::set_temperature)
+                bc.temperature = walls.take(file);
+              if (condition.type == ThermalCondition::Type::heat_transfer)
+                {
+                  bc.coefficient = coefficients.take(file);
+                  bc.temperature = surroundings.take(file);
+                }
+              if (condition.type == ThermalCondition::Type::inlet)
+                bc.temperature = inlets.take(file);
+              flow.thermal_conditions.push_back(bc);
+            }
+        }
+      walls.finish(file);
+      coefficients.finish(file);
+      surroundings.finish(file);
+      inlets.finish(file);
+      for (const std::string &role : roles)
+        if (!assigned.count(role))
+          file.fail(heat + "Insulated", "boundary role '" + role + "' of " + shape_name + " has no thermal condition",
+                    "every role (" + role_list + ") listed under exactly one of " + key_list +
+                      " (axes and symmetry planes: Insulated)");
+    }
+  } // namespace
+
   FlowCase read_flow_case(const CaseFile &file)
   {
     FlowCase flow;
@@ -255,6 +357,7 @@ namespace lentus::input
     flow.nonlinear     = read_section<NonlinearSolverSection>(file, "Nonlinear solver");
     flow.linear        = read_section<LinearSolverSection>(file, "Linear solver");
     flow.accuracy      = read_section<AccuracySection>(file, "Accuracy");
+    flow.heat          = read_section<HeatSection>(file, "Heat");
     flow.output        = read_section<OutputSection>(file, "Output");
 
     const FlowSection &model = flow.model;
@@ -265,6 +368,7 @@ namespace lentus::input
                 "the gradient of an energy", "residual with inertia");
 
     assign_conditions(file, flow);
+    assign_thermal_conditions(file, flow);
 
     // Impellers: a speed when there are impeller roles, and the rotating frame only for planar flow.
     const double rotation_speed = flow.operating.rotation_speed;

@@ -39,6 +39,7 @@ namespace lentus::input
     NonlinearSolverSection            nonlinear;
     LinearSolverSection               linear;
     AccuracySection                   accuracy;
+    HeatSection                       heat;
     OutputSection                     output;
 
     // Derived and checked across sections.
@@ -46,6 +47,7 @@ namespace lentus::input
     std::string                       mesh_file;    ///< Gmsh mesh: the file, as found from the working directory
     std::unique_ptr<meshes::Geometry> geometry;
     std::vector<BoundaryCondition>    conditions;   ///< one per role of the geometry
+    std::vector<ThermalCondition>     thermal_conditions; ///< one per role with the energy equation, else none
     std::string                       output_folder; ///< Output/Folder, or out/<case name>
     std::string                       complete_text; ///< every key with its value, for the record
     /// Where Accuracy/Targeted numbers was set (file or command line, line), for a message about a

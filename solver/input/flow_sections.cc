@@ -214,6 +214,57 @@ namespace lentus::input
               "The larger regularization exponent of the check, as a multiple of the case's M [-].");
   }
 
+  const std::vector<ThermalConditionKey> &thermal_condition_keys()
+  {
+    static const std::vector<ThermalConditionKey> keys = {
+      {"Set temperature", ThermalCondition::Type::set_temperature,
+       "Roles held at a set temperature (Wall temperatures), e.g. a die body at its heater setting."},
+      {"Insulated", ThermalCondition::Type::insulated,
+       "Roles through which no heat flows: adiabatic walls, the axis and symmetry planes."},
+      {"Heat transfer", ThermalCondition::Type::heat_transfer,
+       "Roles that exchange heat with surroundings at a set temperature: heat flow into the fluid "
+       "h (T_surrounding - T) per unit area (Heat transfer coefficients, Surrounding temperatures)."},
+      {"Inlet temperature", ThermalCondition::Type::inlet,
+       "Roles where the fluid enters at a set temperature (Inlet temperatures, or Operating point/Temperature)."},
+      {"Outflow", ThermalCondition::Type::outflow,
+       "Roles where the fluid leaves; no conduction across them (k dT/dn = 0). Their flow-weighted mean "
+       "temperature is reported."},
+    };
+    return keys;
+  }
+
+  void HeatSection::bind(SectionKeys &keys)
+  {
+    keys.boolean("Energy equation", energy_equation,
+                 "Solve for the temperature field with the flow: rho c_p u . grad T = div(k grad T) + eta "
+                 "gamma_dot^2, the viscosity at the local temperature through Rheology/Temperature shift. Needs "
+                 "Rheology/Density, Heat capacity, Thermal conductivity and Operating point/Temperature (the "
+                 "melt's temperature, also that of the isothermal comparison).");
+    keys.boolean("Viscous heating", viscous_heating, "Include the viscous dissipation eta gamma_dot^2 as heat source.");
+    roles.resize(thermal_condition_keys().size());
+    for (std::size_t c = 0; c < thermal_condition_keys().size(); ++c)
+      keys.names(thermal_condition_keys()[c].key, roles[c],
+                 std::string(thermal_condition_keys()[c].documentation) + " Comma-separated role names of the shape.");
+    keys.reals("Wall temperatures", wall_temperatures, Range::above(0.),
+               "T [K] for each role listed under Set temperature, in the same order.");
+    keys.reals("Heat transfer coefficients", transfer_coefficients, Range::at_least(0.),
+               "h [W/(m^2 K)] for each role listed under Heat transfer, in the same order.");
+    keys.reals("Surrounding temperatures", surrounding_temperatures, Range::above(0.),
+               "T [K] of the surroundings of each role listed under Heat transfer, in the same order.");
+    keys.reals("Inlet temperatures", inlet_temperatures, Range::above(0.),
+               "T [K] for each role listed under Inlet temperature, in order; empty: all at Operating "
+               "point/Temperature.");
+    keys.integer("Coupling iterations", coupling_iterations, 1, 1000,
+                 "Passes at most of the split solve: energy equation at the current flow, then the flow at the "
+                 "new temperatures.");
+    keys.real("Coupling tolerance", coupling_tolerance, Range::above(0.),
+              "The coupled solve has converged when no temperature changes by more than this between two "
+              "passes [K].");
+    keys.boolean("Isothermal comparison", isothermal_comparison,
+                 "Solve the flow first at the uniform Operating point/Temperature and report its pressures "
+                 "beside the non-isothermal ones.");
+  }
+
   void OutputSection::bind(SectionKeys &keys)
   {
     keys.text("Folder", folder, "Folder for the results; default out/<case name> next to the working directory.");

@@ -193,6 +193,52 @@ namespace lentus::input
     void bind(SectionKeys &keys);
   };
 
+  /// One thermal condition on one role (subsection Heat).
+  struct ThermalCondition
+  {
+    enum class Type
+    {
+      set_temperature, ///< T = T_wall (a heated or cooled wall)
+      insulated,       ///< no heat flow: k dT/dn = 0 (also axes and symmetry planes)
+      heat_transfer,   ///< heat flow into the fluid h (T_surrounding - T) per unit area
+      inlet,           ///< T = T_inlet where the fluid enters
+      outflow          ///< the fluid leaves: no conduction across, k dT/dn = 0
+    };
+    std::string role;
+    Type        type;
+    double      temperature = 0.; ///< [K]: wall, surrounding or inlet temperature
+    double      coefficient = 0.; ///< h [W/(m^2 K)], for heat_transfer
+  };
+
+  /// A thermal condition's key under Heat, e.g. "Set temperature", and its meaning.
+  struct ThermalConditionKey
+  {
+    const char             *key;
+    ThermalCondition::Type type;
+    const char             *documentation;
+  };
+
+  /// Every thermal condition key, in the order a case file's roles are assigned.
+  const std::vector<ThermalConditionKey> &thermal_condition_keys();
+
+  /// subsection Heat: the energy equation, its conditions by role as written, and the coupling.
+  struct HeatSection
+  {
+    bool energy_equation = false;
+    bool viscous_heating = true;
+    /// Role lists, in the order of thermal_condition_keys().
+    std::vector<std::vector<std::string>> roles;
+    std::vector<double> wall_temperatures;        ///< [K], one per Set temperature role
+    std::vector<double> transfer_coefficients;    ///< [W/(m^2 K)], one per Heat transfer role
+    std::vector<double> surrounding_temperatures; ///< [K], one per Heat transfer role
+    std::vector<double> inlet_temperatures;       ///< [K], one per Inlet temperature role; empty: the melt's
+    unsigned int        coupling_iterations = 40;
+    double              coupling_tolerance  = 1e-6; ///< [K] largest temperature change between passes
+    bool                isothermal_comparison = true;
+
+    void bind(SectionKeys &keys);
+  };
+
   /// subsection Output.
   struct OutputSection
   {

@@ -15,12 +15,18 @@ namespace lentus::input
     /// The fluid's keys outside the law tables (which the registry declares itself).
     struct FluidScalars
     {
-      std::optional<double> density;
+      std::optional<double> density, heat_capacity, thermal_conductivity;
 
       void bind(SectionKeys &keys)
       {
         keys.optional_real("Density", density, rheology::Range::above(0.),
-                           "rho [kg/m^3]: mass density of the fluid; needed with inertia, gravity or a mass flow rate.");
+                           "rho [kg/m^3]: mass density of the fluid; needed with inertia, gravity, a mass flow rate "
+                           "or the energy equation.");
+        keys.optional_real("Heat capacity", heat_capacity, rheology::Range::above(0.),
+                           "c_p [J/(kg K)]: specific heat capacity at constant pressure; needed with the energy "
+                           "equation (Heat/Energy equation).");
+        keys.optional_real("Thermal conductivity", thermal_conductivity, rheology::Range::above(0.),
+                           "k [W/(m K)]: thermal conductivity; needed with the energy equation.");
       }
     };
 
@@ -151,7 +157,10 @@ namespace lentus::input
     else
       fluid.law = fluid.reference_law;
 
-    fluid.density = read_section<FluidScalars>(file, section).density;
+    const FluidScalars scalars = read_section<FluidScalars>(file, section);
+    fluid.density              = scalars.density;
+    fluid.heat_capacity        = scalars.heat_capacity;
+    fluid.thermal_conductivity = scalars.thermal_conductivity;
     return fluid;
   }
 } // namespace lentus::input

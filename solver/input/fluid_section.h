@@ -28,6 +28,8 @@ namespace lentus::input
     std::optional<double>                         temperature;    ///< [K], if set
     double                                        shift_factor;   ///< a_T at `temperature` (1 without shift)
     std::optional<double>                         density;        ///< [kg/m^3], if set
+    std::optional<double>                         heat_capacity;  ///< c_p [J/(kg K)], if set
+    std::optional<double>                         thermal_conductivity; ///< k [W/(m K)], if set
     std::shared_ptr<const rheology::ViscosityLaw> law;            ///< at `temperature`
   };
 

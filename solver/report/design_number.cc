@@ -18,6 +18,8 @@ namespace lentus::report
           return "energy";
         case Group::regions:
           return "regions";
+        case Group::heat:
+          return "heat";
       }
     return "flow";
   }

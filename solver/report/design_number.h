@@ -15,10 +15,11 @@ namespace lentus::report
     die,     ///< developed flow in straight sections, entrance loss
     vessel,  ///< impeller torque and power, dimensionless groups, dead zones, cavern
     energy,  ///< power input and dissipation
-    regions  ///< areas, volumes, unyielded fractions
+    regions, ///< areas, volumes, unyielded fractions
+    heat     ///< temperatures, heat flows, thermal groups (with the energy equation)
   };
 
-  /// "flow", "die", "vessel", "energy", "regions".
+  /// "flow", "die", "vessel", "energy", "regions", "heat".
   const char *to_string(Group group);
 
   /// How accurate a number is (solver/report/accuracy.h). Empty until an estimate is made: a mesh

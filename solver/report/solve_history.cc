@@ -29,6 +29,8 @@ namespace lentus::report
           return "design numbers";
         case Phase::output:
           return "fields output";
+        case Phase::energy_equation:
+          return "energy equation";
       }
     return "?";
   }

@@ -29,9 +29,10 @@ namespace lentus::report
     line_search,       ///< the residuals of trial steps
     mesh_setup,        ///< meshes, refinement, transfer, unknowns and sparsity patterns
     design_numbers,    ///< design numbers and their error estimates
-    output             ///< fields written to the case folder
+    output,            ///< fields written to the case folder
+    energy_equation    ///< assembly and solves of the energy equation
   };
-  inline constexpr std::size_t n_phases = 8;
+  inline constexpr std::size_t n_phases = 9;
 
   /// "residual assembly", "Jacobian assembly", ...
   const char *to_string(Phase phase);

@@ -22,27 +22,9 @@ TEST(InflowProfile, PowerLawPipePressureDrop)
     set Maximum viscosity = 1e8
   end
 end
-subsection Geometry
-  set Shape = Pipe
-  set Refinement = 3
-  subsection Pipe
-    set Radius = 1
-    set Length = 2
-  end
-end
-subsection Flow
-  set Velocity components = r z
-end
-subsection Boundary conditions
-  set No-slip = wall
-  set Axis = axis
-  set Inflow = inlet
-  set Inflow rates = )" + std::to_string(Q) + R"(
-  set Pressure = outlet
-  set Pressure values = 0
-end
 )";
-  const auto result = lentus::testing::run_case("inflow_power_law_pipe", text);
+  const auto result =
+    lentus::testing::run_case("inflow_power_law_pipe", lentus::testing::inflow_pipe(text, 3, 1., 2., Q));
   ASSERT_TRUE(result.converged) << result.reason;
   EXPECT_NEAR(result.number("flow rate out through inlet"), -Q, 1e-3 * Q);
   EXPECT_NEAR(result.number("flow rate out through outlet"), Q, 1e-3 * Q);

@@ -115,6 +115,58 @@ end
 )";
   }
 
+  /// A pipe of `radius` and `length` [m] (r z) fed through its inlet with the developed profile at
+  /// `flow_rate` [m^3/s], at pressure 0 at its outlet, after the `rheology` section (and any others).
+  inline std::string inflow_pipe(const std::string &rheology, const int refinement, const double radius,
+                                 const double length, const double flow_rate)
+  {
+    return rheology + R"(
+subsection Geometry
+  set Shape = Pipe
+  set Refinement = )" + std::to_string(refinement) + R"(
+  subsection Pipe
+    set Radius = )" + digits(radius) + R"(
+    set Length = )" + digits(length) + R"(
+  end
+end
+subsection Flow
+  set Velocity components = r z
+end
+subsection Boundary conditions
+  set No-slip = wall
+  set Axis = axis
+  set Inflow = inlet
+  set Inflow rates = )" + digits(flow_rate) + R"(
+  set Pressure = outlet
+  set Pressure values = 0
+end
+)";
+  }
+
+  /// A channel 0 < x < `length`, 0 < y < `height` [m] between two no-slip walls, fed through its inlet
+  /// with the developed profile at `flow_rate` [m^2/s], at pressure 0 at its outlet, after `rheology`.
+  inline std::string inflow_channel(const std::string &rheology, const int refinement, const double height,
+                                    const double length, const double flow_rate)
+  {
+    return rheology + R"(
+subsection Geometry
+  set Shape = Channel
+  set Refinement = )" + std::to_string(refinement) + R"(
+  subsection Channel
+    set Length = )" + digits(length) + R"(
+    set Height = )" + digits(height) + R"(
+  end
+end
+subsection Boundary conditions
+  set No-slip = bottom wall, top wall
+  set Inflow = inlet
+  set Inflow rates = )" + digits(flow_rate) + R"(
+  set Pressure = outlet
+  set Pressure values = 0
+end
+)";
+  }
+
   /// A Bingham fluid (mu_p = 1 Pa s, tau_y = 1 Pa, M = 1000 s) between cylinders R_i = 1 m and
   /// R_o = 2 m, 0.25 m high with symmetry ends, the inner one turning at `omega` [rad/s] (r z theta).
   inline std::string bingham_couette_case(const double omega, const int refinement)
