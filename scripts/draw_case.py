@@ -11,6 +11,9 @@ Writes into FOLDER (each file complete or not at all):
   swirl_speed.png   swirl speed |u_theta| and the cavern outline (swirling cases)
   die_profiles.png  pressure along the axis or centreline and wall shear stress along the wall
                     (cases with exit_profile.csv: dies and pipes)
+  temperature.png   temperature with streamlines and yield outlines (cases with the energy equation)
+  temperature_profiles.png  temperature along the axis or centreline and along the wall (dies and
+                    pipes with the energy equation)
   mesh.png          the cell edges of the final mesh, coloured by cell size: where it is fine
   flow_curve.png    the fluid's flow curve, the shear rates that occur in the case shaded
   convergence.png   residual and step length against nonlinear iteration (summary.json's solves)
@@ -133,6 +136,64 @@ def picture_scalar(case, view, path, name, title, label, colour_map, logarithmic
         view.legend_above(axes, handles)
     save(figure, path)
     return drawn
+
+
+def picture_temperature(case, view, path):
+    values = view.scalar(case.fields["temperature"])
+    figure, axes = view.figure("Temperature T")
+    mappable = view.image(axes, values, cmap="coolwarm")
+    if numpy.ptp(values) > 1e-12 * numpy.abs(values).max():
+        axes.tricontour(view.triangulation, values, levels=12, colors="white", linewidths=0.5, alpha=0.6)
+    view.colorbar(figure, axes, mappable, "temperature T [K]")
+    drew_lines = draw_streamlines(view, axes, case.fields["velocity"])
+    handles = []
+    drawn = draw_yield_overlay(case, view, axes, handles)
+    if handles:
+        view.legend_above(axes, handles)
+    save(figure, path)
+    caption = "Temperature from the energy equation (white lines: isotherms"
+    caption += "; black: streamlines)" if drew_lines else ")"
+    if "cavern outline" in drawn:
+        caption += "; black line: the yield surface; hatched: unyielded"
+    hottest = case.value("maximum temperature")
+    if hottest is not None:
+        caption += "; hottest point %.5g K" % hottest
+    return caption
+
+
+def picture_temperature_profiles(case, path):
+    import matplotlib.pyplot as pyplot
+    fields = case.fields
+    axial_name, axial, centre, where, walls, exit_position = die_lines(case)
+    temperature = fields["temperature"]
+    figure, axes = pyplot.subplots(figsize=(8.0, 4.2), dpi=110, layout="constrained")
+    axes.plot(fields.points[centre, axial], temperature[centre], color="#D55E00", lw=1.8,
+              label="temperature " + where)
+    for index, wall in enumerate(walls):
+        axes.plot(fields.points[wall, axial], temperature[wall], color="#0072B2", lw=1.6, marker=".", ms=3,
+                  label="temperature at the wall" if index == 0 else None)
+    # The hottest point of each slice across the flow (200 slices): where viscous heating peaks, often
+    # just inside the wall of the land.
+    positions = fields.points[:, axial]
+    edges = numpy.linspace(positions.min(), positions.max(), 201)
+    slices = numpy.clip(numpy.digitize(positions, edges) - 1, 0, 199)
+    hottest = numpy.full(200, -numpy.inf)
+    numpy.maximum.at(hottest, slices, temperature)
+    filled = numpy.isfinite(hottest)
+    axes.plot(0.5 * (edges[:-1] + edges[1:])[filled], hottest[filled], color="#CC79A7", lw=1.2, ls="-.",
+              label="hottest across the flow")
+    mean = case.value("mean temperature at 'outlet'")
+    if mean is not None:
+        axes.axhline(mean, color="black", lw=1.0, ls="--", label="flow-weighted mean at the exit: %.5g K" % mean)
+    axes.axvline(exit_position, color="0.4", lw=0.8, ls=":")
+    axes.set_xlabel("axial position %s (exit at %.4g m)" % (axial_name, exit_position))
+    axes.set_ylabel("temperature T [K]")
+    axes.set_title("Temperature %s, along the wall and hottest across the flow" % where, fontsize=10)
+    axes.grid(True, alpha=0.3)
+    axes.legend(fontsize=8, loc="best")
+    save(figure, path)
+    return ("Temperature %s, along the outer die wall, and the hottest point of each slice across the flow; "
+            "dashed: the flow-weighted (cup-mixing) mean temperature at the exit" % where)
 
 
 def picture_swirl(case, view, path):
@@ -444,6 +505,10 @@ def draw_all(case):
             attempt("viscosity.png", "Viscosity", picture_viscosity, case, view)
         if case.exit_profile is not None:
             attempt("die_profiles.png", "Along the die", picture_die_profiles, case)
+        if case.fields.has("temperature"):
+            attempt("temperature.png", "Temperature", picture_temperature, case, view)
+            if case.exit_profile is not None:
+                attempt("temperature_profiles.png", "Temperature along the die", picture_temperature_profiles, case)
         attempt("mesh.png", "Mesh", picture_mesh, case, view)
     attempt("flow_curve.png", "Flow curve", picture_flow_curve, case)
     attempt("convergence.png", "Convergence", picture_convergence, case)
