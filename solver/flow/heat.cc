@@ -19,6 +19,7 @@
 
 #include "solver/errors.h"
 
+#include <deal.II/base/function.h>
 #include <deal.II/base/quadrature_lib.h>
 #include <deal.II/base/timer.h>
 #include <deal.II/dofs/dof_tools.h>
@@ -144,9 +145,12 @@ namespace lentus::flow
         for (const auto type : {input::ThermalCondition::Type::set_temperature, input::ThermalCondition::Type::inlet})
           for (const input::ThermalCondition &bc : flow.thermal_conditions)
             if (bc.type == type)
-              VectorTools::interpolate_boundary_values(heat.dof_handler, roles.at(bc.role),
-                                                       Functions::ConstantFunction<2>(homogeneous ? 0. : bc.temperature),
-                                                       *constraints);
+              {
+                // A uniform value, or an inlet's profile across the role.
+                const ScalarFunctionFromFunctionObject<2> held(
+                  [&bc, homogeneous](const Point<2> &x) { return homogeneous ? 0. : bc.temperature_at(x[0], x[1]); });
+                VectorTools::interpolate_boundary_values(heat.dof_handler, roles.at(bc.role), held, *constraints);
+              }
         constraints->close();
       }
     heat.hanging_constraints.clear();

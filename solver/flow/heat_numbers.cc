@@ -26,7 +26,7 @@ namespace lentus::flow
     /// Per role: volume flux out, T-weighted flux out, heat transfer into the fluid.
     struct RoleSums
     {
-      double flux = 0., temperature_flux = 0., transfer = 0.;
+      double flux = 0., temperature_flux = 0., transfer = 0., held_flux = 0.; ///< held: T of the condition's data
     };
 
     using Type = input::ThermalCondition::Type;
@@ -131,6 +131,7 @@ namespace lentus::flow
                 const double    un = u_face[q][0] * n[0] + u_face[q][1] * n[1];
                 role.flux += un * w;
                 role.temperature_flux += T_face[q] * un * w;
+                role.held_flux += bc.temperature_at(x[0], x[1]) * un * w;
                 if (bc.type == Type::heat_transfer)
                   role.transfer += bc.coefficient * (bc.temperature - T_face[q]) * w;
               }
@@ -175,6 +176,7 @@ namespace lentus::flow
         role.flux             = Utilities::MPI::sum(sums[bc.role].flux, comm);
         role.temperature_flux = Utilities::MPI::sum(sums[bc.role].temperature_flux, comm);
         role.transfer         = Utilities::MPI::sum(sums[bc.role].transfer, comm);
+        role.held_flux        = Utilities::MPI::sum(sums[bc.role].held_flux, comm);
         const std::string name = "'" + bc.role + "'";
         if (bc.type == Type::outflow)
           {
@@ -188,13 +190,17 @@ namespace lentus::flow
           }
         if (bc.type == Type::inlet)
           {
-            // The fluid enters at the role's set temperature: the heat it carries in is that of the data,
-            // not of the interpolated field (whose corner nodes hold a neighbouring wall's temperature).
+            // The fluid enters at the role's set temperature (uniform or its profile): the heat it carries
+            // in is that of the data, not of the interpolated field (whose corner nodes hold a neighbouring
+            // wall's temperature).
+            const double carried = bc.profile.empty() ? bc.temperature * role.flux : role.held_flux;
+            if (!bc.profile.empty() && role.flux != 0.)
+              numbers.add("mean temperature at " + name, "T_m", carried / role.flux, "K", Group::heat);
             numbers.add("heat carried out through " + name, "H",
-                        factor * heat.rho_cp * (bc.temperature - heat.melt_temperature) * role.flux + 0., "W" + per,
+                        factor * heat.rho_cp * (carried - heat.melt_temperature * role.flux) + 0., "W" + per,
                         Group::heat);
             in_flux += role.flux;
-            in_temperature_flux += bc.temperature * role.flux;
+            in_temperature_flux += carried;
             numbers.add("heat conducted into the fluid through " + name, "Q_c", factor * held[bc.role], "W" + per,
                         Group::heat);
           }

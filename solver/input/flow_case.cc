@@ -8,6 +8,7 @@
 #include <algorithm>
 #include <cmath>
 #include <filesystem>
+#include <fstream>
 #include <map>
 #include <set>
 
@@ -248,6 +249,73 @@ namespace lentus::input
 
   namespace
   {
+    /// Reads an inlet temperature profile (Heat/Inlet temperature files) into `bc`; returns "" or the
+    /// problem, naming the file (as `name`, written in the case file) and its line.
+    std::string read_temperature_profile(const std::string &path, const std::string &name, ThermalCondition &bc)
+    {
+      std::ifstream input(path);
+      if (!input)
+        return "cannot open '" + name + "' (" + path + ")";
+      std::string line;
+      int         number = 0;
+      bool        header = false;
+      while (std::getline(input, line))
+        {
+          ++number;
+          const auto first = line.find_first_not_of(" \t\r");
+          if (first == std::string::npos || line[first] == '#')
+            continue;
+          const auto  comma = line.find(',');
+          const auto  trim  = [](std::string text) {
+            const auto begin = text.find_first_not_of(" \t\r"), end = text.find_last_not_of(" \t\r");
+            return begin == std::string::npos ? std::string() : text.substr(begin, end - begin + 1);
+          };
+          const std::string where = "'" + name + "' line " + std::to_string(number) + ": ";
+          if (comma == std::string::npos || line.find(',', comma + 1) != std::string::npos)
+            return where + "not two comma-separated columns";
+          const std::string left = trim(line.substr(0, comma)), right = trim(line.substr(comma + 1));
+          if (!header)
+            {
+              if (left == "x [m]" || left == "r [m]")
+                bc.profile_axis = 0;
+              else if (left == "y [m]" || left == "z [m]")
+                bc.profile_axis = 1;
+              else
+                return where + "the header's first column is '" + left + "', not x [m], y [m], r [m] or z [m]";
+              if (right != "temperature [K]")
+                return where + "the header's second column is '" + right + "', not temperature [K]";
+              header = true;
+              continue;
+            }
+          double position = 0., temperature = 0.;
+          try
+            {
+              std::size_t used = 0;
+              position         = std::stod(left, &used);
+              if (used != left.size())
+                throw std::invalid_argument(left);
+              temperature = std::stod(right, &used);
+              if (used != right.size())
+                throw std::invalid_argument(right);
+            }
+          catch (const std::exception &)
+            {
+              return where + "'" + line + "' is not two numbers";
+            }
+          if (!std::isfinite(position) || !std::isfinite(temperature) || !(temperature > 0.))
+            return where + "position and temperature must be finite, the temperature > 0 K";
+          if (!bc.profile.empty() && !(position > bc.profile.back().first))
+            return where + "the positions must increase from row to row";
+          bc.profile.emplace_back(position, temperature);
+        }
+      if (!header)
+        return "'" + name + "' has no header line (e.g. r [m],temperature [K])";
+      if (bc.profile.size() < 2)
+        return "'" + name + "' has fewer than two rows of position and temperature";
+      bc.temperature = bc.profile.front().second;
+      return "";
+    }
+
     /// The thermal conditions by role from subsection Heat (only with Heat/Energy equation = true):
     /// every listed role exists, every role gets exactly one, the values match the roles, and the
     /// fluid has what the energy equation needs.
@@ -294,9 +362,16 @@ namespace lentus::input
                           "coefficient [W/(m^2 K)]"};
       Values surroundings{keys.surrounding_temperatures, heat + "Surrounding temperatures", "Heat transfer",
                           "temperature [K]"};
-      Values inlets{keys.inlet_temperatures.empty() ? melt : keys.inlet_temperatures, heat + "Inlet temperatures",
-                    "Inlet temperature", "temperature [K]"};
+      const std::vector<double> from_files; // with Inlet temperature files, no uniform values are taken
+      Values inlets{!keys.inlet_temperature_files.empty() ? from_files :
+                    keys.inlet_temperatures.empty()       ? melt :
+                                                            keys.inlet_temperatures,
+                    heat + "Inlet temperatures", "Inlet temperature", "temperature [K]"};
 
+      if (!keys.inlet_temperature_files.empty() && !keys.inlet_temperatures.empty())
+        file.fail(heat + "Inlet temperature files", "set together with Heat/Inlet temperatures",
+                  "either uniform Inlet temperatures or Inlet temperature files, not both");
+      std::size_t                        next_file = 0;
       std::map<std::string, std::string> assigned;
       for (std::size_t c = 0; c < condition_list.size(); ++c)
         {
@@ -321,7 +396,9 @@ namespace lentus::input
                 file.fail(key, "role '" + role + "' is not crossed by the flow (its flow condition is not Pressure, "
                                "Traction-free, Inflow or Uniform inflow)",
                           "roles where fluid enters or leaves; walls get Set temperature, Insulated or Heat transfer");
-              ThermalCondition bc{role, condition.type};
+              ThermalCondition bc;
+              bc.role = role;
+              bc.type = condition.type;
               if (condition.type == ThermalCondition::Type::set_temperature)
                 bc.temperature = walls.take(file);
               if (condition.type == ThermalCondition::Type::heat_transfer)
@@ -329,11 +406,31 @@ namespace lentus::input
                   bc.coefficient = coefficients.take(file);
                   bc.temperature = surroundings.take(file);
                 }
-              if (condition.type == ThermalCondition::Type::inlet)
+              if (condition.type == ThermalCondition::Type::inlet && keys.inlet_temperature_files.empty())
                 bc.temperature = inlets.take(file);
+              if (condition.type == ThermalCondition::Type::inlet && !keys.inlet_temperature_files.empty())
+                {
+                  const std::string files_key = heat + "Inlet temperature files";
+                  if (next_file >= keys.inlet_temperature_files.size())
+                    file.fail(files_key, "fewer files than roles under Inlet temperature",
+                              "one file per role, in order");
+                  const std::string &name = keys.inlet_temperature_files[next_file++];
+                  const std::string  path =
+                    std::filesystem::path(name).is_absolute() ?
+                      name :
+                      (std::filesystem::path(file.file_name()).parent_path() / name).lexically_normal().string();
+                  const std::string problem = read_temperature_profile(path, name, bc);
+                  if (!problem.empty())
+                    file.fail(files_key, problem,
+                              "CSV files with a header 'r [m],temperature [K]' (or x, y, z) and rows of increasing "
+                              "position and temperature > 0 K");
+                }
               flow.thermal_conditions.push_back(bc);
             }
         }
+      if (next_file != keys.inlet_temperature_files.size())
+        file.fail(heat + "Inlet temperature files", "more files than roles under Inlet temperature",
+                  "one file per role, in order");
       walls.finish(file);
       coefficients.finish(file);
       surroundings.finish(file);

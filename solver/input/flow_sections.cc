@@ -4,6 +4,9 @@
 #include "meshes/gmsh_mesh.h"
 #include "solver/input/section_keys.h"
 
+#include <algorithm>
+#include <cmath>
+
 namespace lentus::input
 {
   using rheology::Range;
@@ -233,6 +236,21 @@ namespace lentus::input
     return keys;
   }
 
+  double ThermalCondition::temperature_at(const double x0, const double x1) const
+  {
+    if (profile.empty())
+      return temperature;
+    const double position = profile_axis == 0 ? x0 : x1;
+    if (position <= profile.front().first)
+      return profile.front().second;
+    if (position >= profile.back().first)
+      return profile.back().second;
+    const auto upper = std::lower_bound(profile.begin(), profile.end(), std::make_pair(position, -HUGE_VAL));
+    const auto lower = upper - 1;
+    const double t   = (position - lower->first) / (upper->first - lower->first);
+    return lower->second + t * (upper->second - lower->second);
+  }
+
   void HeatSection::bind(SectionKeys &keys)
   {
     keys.boolean("Energy equation", energy_equation,
@@ -254,6 +272,11 @@ namespace lentus::input
     keys.reals("Inlet temperatures", inlet_temperatures, Range::above(0.),
                "T [K] for each role listed under Inlet temperature, in order; empty: all at Operating "
                "point/Temperature.");
+    keys.names("Inlet temperature files", inlet_temperature_files,
+               "Instead of Inlet temperatures: a CSV file for each role listed under Inlet temperature, in order, "
+               "relative to the case file's folder, with the temperature across the role: a header 'r [m],temperature "
+               "[K]' (or x, y, z: the coordinate that varies along the role), then rows of position and "
+               "temperature, positions increasing; linear between rows, the end values beyond them.");
     keys.integer("Coupling iterations", coupling_iterations, 1, 1000,
                  "Passes at most of the split solve: energy equation at the current flow, then the flow at the "
                  "new temperatures.");

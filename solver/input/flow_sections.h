@@ -8,6 +8,7 @@
 #include <array>
 #include <optional>
 #include <string>
+#include <utility>
 #include <vector>
 
 namespace lentus::input
@@ -206,8 +207,16 @@ namespace lentus::input
     };
     std::string role;
     Type        type;
-    double      temperature = 0.; ///< [K]: wall, surrounding or inlet temperature
+    double      temperature = 0.; ///< [K]: wall, surrounding or (uniform) inlet temperature
     double      coefficient = 0.; ///< h [W/(m^2 K)], for heat_transfer
+    /// An inlet's temperature across the role from Inlet temperature files: (position, T [K]) rows,
+    /// positions increasing along coordinate `profile_axis` (0: x or r, 1: y or z). Empty: uniform.
+    std::vector<std::pair<double, double>> profile;
+    int                                    profile_axis = 0;
+
+    /// The temperature at the point (x0, x1) of the role [K]: `temperature`, or the profile
+    /// interpolated linearly (beyond its ends, the end values).
+    double temperature_at(double x0, double x1) const;
   };
 
   /// A thermal condition's key under Heat, e.g. "Set temperature", and its meaning.
@@ -232,6 +241,7 @@ namespace lentus::input
     std::vector<double> transfer_coefficients;    ///< [W/(m^2 K)], one per Heat transfer role
     std::vector<double> surrounding_temperatures; ///< [K], one per Heat transfer role
     std::vector<double> inlet_temperatures;       ///< [K], one per Inlet temperature role; empty: the melt's
+    std::vector<std::string> inlet_temperature_files; ///< CSV profiles, one per Inlet temperature role, or none
     unsigned int        coupling_iterations = 40;
     double              coupling_tolerance  = 1e-6; ///< [K] largest temperature change between passes
     bool                isothermal_comparison = true;

@@ -7,6 +7,8 @@
 #include <gtest/gtest.h>
 
 #include <cmath>
+#include <filesystem>
+#include <fstream>
 #include <iostream>
 #include <string>
 
@@ -157,29 +159,10 @@ TEST(ViscousHeating, CouetteWithHeatTransferWall)
 TEST(ViscousHeating, TaylorCouetteWithSwirl)
 {
   const double mu = 1., k = 0.1, T0 = 420., omega = 1., Ri = 1., Ro = 2.;
-  const std::string text = thermal(newtonian(mu), small_rho_cp, 1., k, T0,
+  const std::string heat = thermal(newtonian(mu), small_rho_cp, 1., k, T0,
                                    "  set Set temperature = inner wall, outer wall\n"
-                                   "  set Wall temperatures = 420, 420\n  set Insulated = bottom, top\n") +
-                           R"(subsection Geometry
-  set Shape = Annular gap
-  set Refinement = 3
-  subsection Annular gap
-    set Inner radius = 1
-    set Outer radius = 2
-    set Height = 0.25
-  end
-end
-subsection Flow
-  set Velocity components = r z theta
-end
-subsection Boundary conditions
-  set Moving wall = inner wall
-  set Rotation rate = 1
-  set No-slip = outer wall
-  set Symmetry = bottom, top
-end
-)";
-  const FlowRun run(flow_case("heat_taylor_couette", text), MPI_COMM_WORLD);
+                                   "  set Wall temperatures = 420, 420\n  set Insulated = bottom, top\n");
+  const FlowRun run(flow_case("heat_taylor_couette", lentus::testing::couette_gap(heat, omega, 3)), MPI_COMM_WORLD);
   ASSERT_TRUE(run.result().converged) << run.result().reason;
   const double B = omega * Ri * Ri * Ro * Ro / (Ro * Ro - Ri * Ri), c = mu * B * B / k;
   // T(Ri) = T(Ro) = T0: C1 ln Ri + C2 = c / Ri^2, C1 ln Ro + C2 = c / Ro^2.
@@ -371,6 +354,36 @@ TEST(ThermalEntrance, ParallelPlatesNusseltNumber)
   const double nusselt = -(rho_cp * U * H * H / k) * std::log(theta2 / theta1) / (x2 - x1);
   std::cout << "plates: Nusselt number far downstream " << nusselt << " (Shah & London 1978: 7.541)\n";
   EXPECT_NEAR(nusselt, 7.541, 0.005 * 7.541);
+}
+
+// An inlet temperature profile (Heat/Inlet temperature files): developed pipe flow entering with
+// T = T0 + dT r/R, insulated wall, no dissipation. The fluid carries in its cup-mixing (flow-weighted)
+// temperature, with u = 2U (1 - (r/R)^2): T_b = T0 + dT int (1-s^2) s^2 ds / int (1-s^2) s ds = T0 + 8 dT/15
+// (Bird, Stewart & Lightfoot 2002, Transport Phenomena, sec. 10.8 for the cup-mixing temperature; the
+// integral done here). Energy conservation with an insulated wall (same source, sec. 11.2): what leaves is
+// what entered plus what conduction brings in at the inlet.
+TEST(InletProfile, CupMixingTemperatureCarriedThrough)
+{
+  const double T0 = 400., dT = 10., R = 0.1, Q = 1e-3, rho_cp = 1e6;
+  {
+    std::filesystem::create_directories("verification_out");
+    std::ofstream profile("verification_out/inlet_profile.csv");
+    profile << "# temperature across the inlet\nr [m],temperature [K]\n0,400\n0.1,410\n";
+  }
+  const std::string heat = thermal(newtonian(1.), 1000., 1000., 0.5, T0,
+                                   "  set Insulated = wall, axis\n  set Inlet temperature = inlet\n"
+                                   "  set Inlet temperature files = verification_out/inlet_profile.csv\n"
+                                   "  set Outflow = outlet\n",
+                                   false);
+  const FlowRun run(flow_case("heat_inlet_profile", lentus::testing::inflow_pipe(heat, 2, R, 1., Q)), MPI_COMM_WORLD);
+  ASSERT_TRUE(run.result().converged) << run.result().reason;
+  // The inlet holds the profile: linear in r, exact at every point of the role.
+  EXPECT_NEAR(run.temperature_at({0.03, 0.}), T0 + 0.3 * dT, 1e-9 * dT);
+  const double inlet = run.result().number("mean temperature at 'inlet'");
+  EXPECT_NEAR(inlet, T0 + 8. * dT / 15., 1e-6 * dT);
+  const double conducted = run.result().number("heat conducted into the fluid through 'inlet'");
+  EXPECT_NEAR(run.result().number("net heat carried out by the flow"), conducted, 1e-8 * rho_cp * Q * dT);
+  EXPECT_NEAR(run.result().number("mean temperature at 'outlet'"), inlet + conducted / (rho_cp * Q), 1e-2 * dT);
 }
 
 // A heated round die with a temperature-dependent melt (exponential shift): the split coupled solve

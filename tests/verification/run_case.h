@@ -167,11 +167,11 @@ end
 )";
   }
 
-  /// A Bingham fluid (mu_p = 1 Pa s, tau_y = 1 Pa, M = 1000 s) between cylinders R_i = 1 m and
-  /// R_o = 2 m, 0.25 m high with symmetry ends, the inner one turning at `omega` [rad/s] (r z theta).
-  inline std::string bingham_couette_case(const double omega, const int refinement)
+  /// The fluid of `rheology` (and any other sections) between cylinders R_i = 1 m and R_o = 2 m,
+  /// 0.25 m high with symmetry ends, the inner one turning at `omega` [rad/s] (r z theta).
+  inline std::string couette_gap(const std::string &rheology, const double omega, const int refinement)
   {
-    return bingham(1000., 1.) + R"(
+    return rheology + R"(
 subsection Geometry
   set Shape = Annular gap
   set Refinement = )" + std::to_string(refinement) + R"(
@@ -191,6 +191,12 @@ subsection Boundary conditions
   set Symmetry = bottom, top
 end
 )";
+  }
+
+  /// A Bingham fluid (mu_p = 1 Pa s, tau_y = 1 Pa, M = 1000 s) in couette_gap().
+  inline std::string bingham_couette_case(const double omega, const int refinement)
+  {
+    return couette_gap(bingham(1000., 1.), omega, refinement);
   }
 
   /// |a - b| / |b|.
