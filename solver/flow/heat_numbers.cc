@@ -247,7 +247,9 @@ namespace lentus::flow
             report::DesignNumber copy = *isothermal;
             copy.name                 = std::string("isothermal ") + name;
             copy.symbol += "_iso";
-            copy.key      = false;
+            // A key number's isothermal value is a key number too: the user sees both side by side.
+            const report::DesignNumber *heated = numbers.find(name);
+            copy.key                           = heated && heated->key;
             copy.group    = Group::heat;
             copy.accuracy = {};
             numbers.add(copy);
