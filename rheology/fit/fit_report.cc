@@ -183,6 +183,8 @@ namespace lentus::rheology::fit
       write_values("Arrhenius", fit.shift_values, {"Activation energy", "Reference temperature"});
     if (fit.shift_name == "WLF")
       write_values("WLF", fit.shift_values, {"C1", "C2", "Reference temperature"});
+    if (fit.shift_name == "Exponential")
+      write_values("Exponential", fit.shift_values, {"Temperature sensitivity", "Reference temperature"});
     text << "end\n";
     if (fit.shift_name != "none")
       text << "# A temperature shift needs the temperature of the case; T_ref here, so that this file\n"

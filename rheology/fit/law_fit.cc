@@ -102,11 +102,14 @@ namespace lentus::rheology::fit
       none,
       free,
       arrhenius,
-      wlf
+      wlf,
+      exponential
     };
 
     /// Arrhenius activation energy is fitted as E_a / this [J/mol].
     constexpr double energy_scale = 1e4;
+    /// The exponential shift's temperature sensitivity is fitted as beta / this [1/K].
+    constexpr double sensitivity_scale = 1e-2;
 
     class Model
     {
@@ -142,6 +145,7 @@ namespace lentus::rheology::fit
             case ShiftKind::free: return free_temperatures.size();
             case ShiftKind::arrhenius: return 1;
             case ShiftKind::wlf: return 2;
+            case ShiftKind::exponential: return 1;
           }
         return 0;
       }
@@ -171,6 +175,9 @@ namespace lentus::rheology::fit
             case ShiftKind::arrhenius:
               // ln a_T = E_a/R (1/T - 1/T_ref)
               return theta[k] * energy_scale / gas_constant * (1. / temperature - 1. / reference_temperature);
+            case ShiftKind::exponential:
+              // ln a_T = -beta (T - T_ref)
+              return -theta[k] * sensitivity_scale * (temperature - reference_temperature);
             case ShiftKind::wlf:
               {
                 // ln a_T = -ln(10) C1 (T - T_ref) / (C2 + T - T_ref)
@@ -414,6 +421,14 @@ namespace lentus::rheology::fit
           energy.scale     = energy_scale;
           fit.estimates.push_back(make_estimate(k, energy));
         }
+      if (model.kind == ShiftKind::exponential)
+        {
+          Estimate sensitivity{"Rheology/Exponential/Temperature sensitivity", "Temperature sensitivity", "beta",
+                               "1/K"};
+          sensitivity.log_scale = false;
+          sensitivity.scale     = sensitivity_scale;
+          fit.estimates.push_back(make_estimate(k, sensitivity));
+        }
       if (model.kind == ShiftKind::wlf)
         {
           fit.estimates.push_back(make_estimate(k, {"Rheology/WLF/C1", "C1", "C1", "-"}));
@@ -429,6 +444,13 @@ namespace lentus::rheology::fit
               fit.shift_values = {{"Activation energy", fit.estimates[k].value},
                                   {"Reference temperature", model.reference_temperature}};
               fit.shift        = TemperatureShift::create("Arrhenius", fit.shift_values);
+            }
+          if (model.kind == ShiftKind::exponential)
+            {
+              fit.shift_name   = "Exponential";
+              fit.shift_values = {{"Temperature sensitivity", fit.estimates[k].value},
+                                  {"Reference temperature", model.reference_temperature}};
+              fit.shift        = TemperatureShift::create("Exponential", fit.shift_values);
             }
           if (model.kind == ShiftKind::wlf)
             {
@@ -675,6 +697,19 @@ namespace lentus::rheology::fit
               }
             start.push_back(sxy / sxx * gas_constant / energy_scale);
             model.kind = ShiftKind::arrhenius;
+          }
+        else if (options.shift == ShiftModel::exponential)
+          {
+            // ln a_T = -beta x with x = T - T_ref: least squares through the origin.
+            double sxy = 0., sxx = 0.;
+            for (std::size_t i = 0; i < model.free_temperatures.size(); ++i)
+              {
+                const double x = model.free_temperatures[i] - reference;
+                sxy += x * free_solution.theta[n_law + i];
+                sxx += x * x;
+              }
+            start.push_back(-sxy / sxx / sensitivity_scale);
+            model.kind = ShiftKind::exponential;
           }
         else
           {

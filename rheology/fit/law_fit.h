@@ -25,6 +25,7 @@ namespace lentus::rheology::fit
   {
     arrhenius, ///< a_T = exp(E_a/R (1/T - 1/T_ref)): one parameter
     wlf,       ///< log10 a_T = -C1 (T - T_ref)/(C2 + T - T_ref): two parameters, 3+ temperatures
+    exponential, ///< a_T = exp(-beta (T - T_ref)): one parameter
     none       ///< temperature ignored
   };
 

@@ -37,7 +37,7 @@ over the measured range.
 
 options:
   --law NAME                 fit only this law (default: every law; see lentus laws)
-  --shift Arrhenius|WLF|none temperature shift for data at several temperatures (default Arrhenius)
+  --shift Arrhenius|WLF|Exponential|none temperature shift for data at several temperatures (default Arrhenius)
   --reference-temperature T  T_ref [K], one of the measured temperatures (default: the middle one)
   --rate-unit U, --stress-unit U, --viscosity-unit U, --temperature-unit U
                              unit of a column whose header gives none (default SI)
@@ -58,9 +58,12 @@ Fitted parameters are model estimates: check them against measurements.
         return rheology::fit::ShiftModel::arrhenius;
       if (found->second == "WLF")
         return rheology::fit::ShiftModel::wlf;
+      if (found->second == "Exponential")
+        return rheology::fit::ShiftModel::exponential;
       if (found->second == "none")
         return rheology::fit::ShiftModel::none;
-      throw InputError("command line", 0, "--shift = " + found->second + ": unknown shift; allowed: Arrhenius, WLF, none");
+      throw InputError("command line", 0,
+                       "--shift = " + found->second + ": unknown shift; allowed: Arrhenius, WLF, Exponential, none");
     }
 
     std::string option_or(const Arguments &arguments, const std::string &name, const std::string &fallback)

@@ -172,6 +172,30 @@ namespace lentus::rheology::fit
       EXPECT_NEAR(estimate_of(fit, "C2").value, 150., 1e-5 * 150.);
     }
 
+    // Source: analytic (exact exponential shift a_T = exp(-beta (T - T_ref)), noise free; the form of the
+    // viscosity-temperature law often credited to Reynolds 1886, Phil. Trans. R. Soc. 177:157, from memory).
+    TEST(FitTemperature, ExponentialSensitivityIsRecoveredFromThreeTemperatures)
+    {
+      const double beta = 0.021, reference = 483.15;
+      const auto   shift = TemperatureShift::exponential(beta, reference);
+      std::vector<std::pair<double, double>> sets;
+      for (const double temperature : {463.15, 483.15, 503.15})
+        sets.push_back({temperature, shift.factor(temperature)});
+      const SyntheticLaw  law     = synthetic_laws()[3]; // Carreau-Yasuda
+      const FlowCurveData data    = make_data(law.stress, 1e-2, 1e3, 15, 0., 1, sets);
+      FitOptions          options = only(law.law);
+      options.shift               = ShiftModel::exponential;
+      const LawFit fit            = fit_law(data, law.law, options);
+      ASSERT_TRUE(fit.fitted) << fit.failure;
+      EXPECT_EQ(fit.shift_name, "Exponential");
+      EXPECT_EQ(fit.reference_temperature, reference);
+      EXPECT_NEAR(estimate_of(fit, "Temperature sensitivity").value, beta, 1e-5 * beta);
+      for (const auto &[key, value] : law.truth)
+        EXPECT_NEAR(estimate_of(fit, key).value, value, 1e-6 * value) << key;
+      // The fitted fluid evaluates like the truth at another temperature (analytic).
+      EXPECT_NEAR(fit.stress(3., 473.15), law.stress(shift.factor(473.15) * 3.), 1e-6 * law.stress(3.));
+    }
+
     // Source: the meaning of a 95% confidence interval (as above), applied to the activation energy;
     // band as above for 100 seeds (about +-3 binomial standard deviations; common practice).
     TEST(FitTemperature, IntervalsCoverTheTruthWithAnArrheniusShift)
