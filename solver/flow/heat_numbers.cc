@@ -224,10 +224,18 @@ namespace lentus::flow
     // only weakly).
     numbers.add("net heat carried out by the flow", "H_net", factor * weighted[2], "W" + per, Group::heat);
     numbers.add("maximum temperature", "T_max", hottest[0], "K", Group::heat, true);
-    numbers.add(std::string("maximum temperature at ") + (axisymmetric ? "r" : "x"), axisymmetric ? "r_Tmax" : "x_Tmax",
-                hottest[1], "m", Group::heat);
-    numbers.add(std::string("maximum temperature at ") + (axisymmetric ? "z" : "y"), axisymmetric ? "z_Tmax" : "y_Tmax",
-                hottest[2], "m", Group::heat);
+    // Where it is: a node, which jumps between meshes; no error bar.
+    for (int c = 0; c < 2; ++c)
+      {
+        report::DesignNumber where;
+        where.name      = std::string("maximum temperature at ") + (axisymmetric ? "rz"[c] : "xy"[c]);
+        where.symbol    = std::string(1, axisymmetric ? "rz"[c] : "xy"[c]) + "_Tmax";
+        where.value     = hottest[1 + c];
+        where.unit      = "m";
+        where.group     = Group::heat;
+        where.estimable = false;
+        numbers.add(where);
+      }
 
     // Thermal groups of the case: U the largest speed (at the nodes; in a die, the land's centreline), eta the
     // dissipation-weighted mean viscosity at the melt temperature, int eta gamma_dot^2 / int gamma_dot^2.

@@ -131,6 +131,15 @@ namespace lentus::report
     for (const DesignNumber &entry : numbers.all())
       {
         Accuracy accuracy;
+        if (!entry.estimable)
+          {
+            accuracy.mesh_method = accuracy.regularization_method =
+              "not estimated: a location, whose change between meshes is no error estimate";
+            DesignNumber updated = entry;
+            updated.accuracy     = accuracy;
+            numbers.replace(updated);
+            continue;
+          }
         std::vector<MeshValue> sequence;
         for (const MeshNumbers &mesh : meshes)
           if (const DesignNumber *on_mesh = mesh.numbers.find(entry.name); on_mesh && std::isfinite(on_mesh->value))

@@ -43,6 +43,9 @@ namespace lentus::report
     double      value = 0.;
     Group       group = Group::flow;
     bool        key   = false; ///< one of the few numbers a user came for (shown first)
+    /// False for a number whose change from mesh to mesh is not an error that shrinks (the location of
+    /// an extreme, which jumps between nodes): it gets no error bar.
+    bool        estimable = true;
     Accuracy    accuracy;
   };
 

@@ -152,3 +152,29 @@ TEST(Accuracy, CombinesMeshAndRegularizationErrors)
   EXPECT_FALSE(total_error(x));
   EXPECT_EQ(value_with_error(*final_numbers.find("only here")), "7");
 }
+
+// A number marked not estimable (a location that jumps between nodes) gets no error bar even where its
+// mesh sequence would give one.
+TEST(Accuracy, LocationsGetNoErrorBar)
+{
+  std::vector<MeshNumbers> meshes(3);
+  const double             cells[3] = {100., 400., 1600.};
+  for (int i = 0; i < 3; ++i)
+    {
+      meshes[i].cells = static_cast<std::uint64_t>(cells[i]);
+      DesignNumber where;
+      where.name      = "hottest at x";
+      where.symbol    = "x_T";
+      where.unit      = "m";
+      where.value     = 0.3 + 0.1 * std::pow(cells[i], -1.);
+      where.group     = Group::heat;
+      where.estimable = false;
+      meshes[i].numbers.add(where);
+    }
+  DesignNumbers final_numbers = meshes[2].numbers;
+  estimate_accuracy(final_numbers, meshes, nullptr, 4.);
+  const Accuracy &x = final_numbers.find("hottest at x")->accuracy;
+  EXPECT_FALSE(x.mesh_error);
+  EXPECT_FALSE(x.extrapolated);
+  EXPECT_NE(x.mesh_method.find("a location"), std::string::npos);
+}
