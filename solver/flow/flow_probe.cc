@@ -16,37 +16,48 @@ namespace lentus::flow
 {
   using namespace dealii;
 
+  namespace
+  {
+    /// The `n_components` values of the field `vector` (on `dof_handler`) at x, over all ranks: the
+    /// rank whose cell holds x evaluates it. Collective. Throws std::out_of_range if no rank finds x.
+    template <typename VectorType>
+    std::vector<double> field_values_at(const DoFHandler<2> &dof_handler, const VectorType &vector,
+                                        const unsigned int n_components, const Point<2> &x, const MPI_Comm comm)
+    {
+      std::vector<double> sums(n_components + 1, 0.); // values, then the number of ranks that found x
+      const MappingQ1<2>  mapping;
+      try
+        {
+          const auto found = GridTools::find_active_cell_around_point(mapping, dof_handler, x);
+          if (found.first->is_locally_owned())
+            {
+              const Quadrature<2> at_point(GeometryInfo<2>::project_to_unit_cell(found.second));
+              FEValues<2>         fe_values(mapping, dof_handler.get_fe(), at_point, update_values);
+              fe_values.reinit(found.first);
+              std::vector<dealii::Vector<double>> values(1, dealii::Vector<double>(n_components));
+              fe_values.get_function_values(vector, values);
+              for (unsigned int c = 0; c < n_components; ++c)
+                sums[c] = values[0][c];
+              sums[n_components] = 1.;
+            }
+        }
+      catch (const std::exception &)
+        {
+          // x is not in a cell this rank knows; another rank has it.
+        }
+      Utilities::MPI::sum(ArrayView<const double>(sums), comm, ArrayView<double>(sums));
+      if (sums[n_components] < 1.)
+        throw std::out_of_range("point outside the flow domain");
+      std::vector<double> values(n_components);
+      for (unsigned int c = 0; c < n_components; ++c)
+        values[c] = sums[c] / sums[n_components];
+      return values;
+    }
+  } // namespace
+
   std::vector<double> FlowRun::values_at(const Point<2> &x) const
   {
-    const unsigned int  n_components = state->physics.n_velocity + 1;
-    std::vector<double> sums(n_components + 1, 0.); // values, then the number of ranks that found x
-    const MappingQ1<2>  mapping;
-    try
-      {
-        const auto found = GridTools::find_active_cell_around_point(mapping, state->mesh.dof_handler, x);
-        if (found.first->is_locally_owned())
-          {
-            const Quadrature<2> at_point(GeometryInfo<2>::project_to_unit_cell(found.second));
-            FEValues<2>         fe_values(mapping, state->mesh.fe, at_point, update_values);
-            fe_values.reinit(found.first);
-            std::vector<dealii::Vector<double>> values(1, dealii::Vector<double>(n_components));
-            fe_values.get_function_values(state->solution, values);
-            for (unsigned int c = 0; c < n_components; ++c)
-              sums[c] = values[0][c];
-            sums[n_components] = 1.;
-          }
-      }
-    catch (const std::exception &)
-      {
-        // x is not in a cell this rank knows; another rank has it.
-      }
-    Utilities::MPI::sum(ArrayView<const double>(sums), state->mesh.comm, ArrayView<double>(sums));
-    if (sums[n_components] < 1.)
-      throw std::out_of_range("point outside the flow domain");
-    std::vector<double> values(n_components);
-    for (unsigned int c = 0; c < n_components; ++c)
-      values[c] = sums[c] / sums[n_components];
-    return values;
+    return field_values_at(state->mesh.dof_handler, state->solution, state->physics.n_velocity + 1, x, state->mesh.comm);
   }
 
   double FlowRun::temperature_at(const Point<2> &x) const
@@ -54,30 +65,7 @@ namespace lentus::flow
     const HeatField *heat = state->physics.heat.get();
     if (!heat || !heat->solved)
       throw std::logic_error("no temperature field: the case was not solved with Heat/Energy equation = true");
-    double             sums[2] = {0., 0.}; // temperature, number of ranks that found x
-    const MappingQ1<2> mapping;
-    try
-      {
-        const auto found = GridTools::find_active_cell_around_point(mapping, heat->dof_handler, x);
-        if (found.first->is_locally_owned())
-          {
-            const Quadrature<2> at_point(GeometryInfo<2>::project_to_unit_cell(found.second));
-            FEValues<2>         fe_values(mapping, heat->fe, at_point, update_values);
-            fe_values.reinit(found.first);
-            std::vector<double> value(1);
-            fe_values.get_function_values(heat->temperature, value);
-            sums[0] = value[0];
-            sums[1] = 1.;
-          }
-      }
-    catch (const std::exception &)
-      {
-        // x is not in a cell this rank knows; another rank has it.
-      }
-    Utilities::MPI::sum(ArrayView<const double>(sums, 2), state->mesh.comm, ArrayView<double>(sums, 2));
-    if (sums[1] < 1.)
-      throw std::out_of_range("point outside the flow domain");
-    return sums[0] / sums[1];
+    return field_values_at(heat->dof_handler, heat->temperature, 1, x, state->mesh.comm)[0];
   }
 
   double FlowRun::velocity_error(const std::function<Tensor<1, 2>(const Point<2> &)> &exact) const

@@ -43,6 +43,8 @@ namespace lentus::flow
     : fe(flow.model.velocity_degree)
     , shift(flow.fluid.shift)
     , melt_temperature(flow.fluid.temperature.value())
+    , melt_factor(flow.fluid.shift.kind() == rheology::TemperatureShift::Kind::none ? 1. :
+                                                                                   flow.fluid.shift.factor(melt_temperature))
     , rho_cp(flow.fluid.density.value() * flow.fluid.heat_capacity.value())
     , conductivity(flow.fluid.thermal_conductivity.value())
     , viscous_heating(flow.heat.viscous_heating)
@@ -52,7 +54,7 @@ namespace lentus::flow
   {
     if (shift.kind() == rheology::TemperatureShift::Kind::none)
       return 1.;
-    return shift.factor(temperature) / shift.factor(melt_temperature);
+    return shift.factor(temperature) / melt_factor;
   }
 
   std::shared_ptr<HeatField> make_heat_field(const input::FlowCase &flow)

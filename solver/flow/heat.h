@@ -30,6 +30,7 @@ namespace lentus::flow
 
     rheology::TemperatureShift shift;
     double                     melt_temperature; ///< Operating point/Temperature [K]
+    double                     melt_factor;      ///< a_T(melt_temperature), 1 without a shift
     double                     rho_cp;           ///< rho c_p [J/(m^3 K)]
     double                     conductivity;     ///< k [W/(m K)]
     bool                       viscous_heating;
