@@ -412,6 +412,47 @@ namespace lentus::flow
       return solve_from_current(state, state.physics, outcome, "from the coarser mesh");
     }
 
+    /// A sweep's warm start on mesh `mesh_index` of the sequence (0: the first): from a neighbouring
+    /// case's solution saved on the same mesh; false when there is none, or when it does not converge
+    /// from there (state.solution is then the start it had, and the caller solves as usual).
+    bool solve_from_warm_start(FlowState &state, SolveOutcome &outcome, const unsigned int mesh_index)
+    {
+      const std::string &from = state.physics.flow.warm_start_from;
+      if (from.empty())
+        return false;
+      const Vector own_start = state.solution;
+      std::string  why;
+      if (!load_warm_start(state, from + ".mesh" + std::to_string(mesh_index), why))
+        {
+          state.log.line("Warm start: " + why + "; as without one");
+          return false;
+        }
+      state.log.line("Warm start from " + from);
+      try
+        {
+          outcome.converged = solve_from_current(state, state.physics, outcome, "from a neighbouring case");
+        }
+      catch (const NoConvergence &error)
+        {
+          outcome.converged = false;
+          outcome.reason    = error.what();
+        }
+      if (!outcome.converged)
+        {
+          state.log.line("  the warm start did not converge (" + outcome.reason + "); as without one");
+          state.solution = own_start;
+        }
+      return outcome.converged;
+    }
+
+    /// Keeps a converged mesh's solution for the sweep's later cases (warm start = nearest).
+    void save_for_warm_starts(const FlowState &state, const SolveOutcome &outcome, const unsigned int mesh_index)
+    {
+      const std::string &save = state.physics.flow.warm_start_save;
+      if (outcome.converged && !save.empty())
+        save_warm_start(state, save + ".mesh" + std::to_string(mesh_index));
+    }
+
     /// The design numbers of a converged mesh, for the mesh error of every number.
     void record_numbers(FlowState &state, SolveOutcome &outcome)
     {
@@ -484,7 +525,9 @@ namespace lentus::flow
         outcome.converged = solve_coupled_heat(state, outcome);
     };
     attempt([&] {
-      solve_nonlinear(state, outcome);
+      if (!solve_from_warm_start(state, outcome, 0))
+        solve_nonlinear(state, outcome);
+      save_for_warm_starts(state, outcome, 0);
       with_heat();
     });
     record_numbers(state, outcome);
@@ -496,9 +539,12 @@ namespace lentus::flow
         record_mesh(state, outcome, remaining > 1 ? "coarser mesh" : "case mesh");
         outcome.history.add_mesh_seconds(timer.wall_time());
         log_mesh(state, remaining > 1 ? "Finer " : "Final ");
+        const unsigned int mesh_index = levels - remaining + 1;
         if (follow)
           attempt([&] {
-            outcome.converged = solve_from_interpolated(state, outcome);
+            if (!solve_from_warm_start(state, outcome, mesh_index))
+              outcome.converged = solve_from_interpolated(state, outcome);
+            save_for_warm_starts(state, outcome, mesh_index);
             with_heat();
           });
         if (!outcome.converged && remaining == 1)

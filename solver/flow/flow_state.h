@@ -151,6 +151,13 @@ namespace lentus::flow
   /// The initial iterate: zero with the Dirichlet values.
   void initial_solution(FlowState &state);
 
+  // warm_start.cc
+  /// Saves the solution (collective; one file per rank, `prefix`.<rank>of<ranks>.bin, written whole).
+  void save_warm_start(const FlowState &state, const std::string &prefix);
+  /// Reads a solution saved on the same mesh with as many ranks into state.solution, with this
+  /// case's Dirichlet values; false (and `why`) when there is none. Collective.
+  bool load_warm_start(FlowState &state, const std::string &prefix, std::string &why);
+
   // heat.cc
   /// The case's temperature field, unset until setup_dofs(); null without Heat/Energy equation.
   std::shared_ptr<HeatField> make_heat_field(const input::FlowCase &flow);

@@ -53,6 +53,10 @@ namespace lentus::input
     /// Where Accuracy/Targeted numbers was set (file or command line, line), for a message about a
     /// name the solved case does not have.
     std::pair<std::string, int> targeted_numbers_place;
+    /// A sweep's warm start (not a case-file key): each mesh of the sequence starts from the solution
+    /// saved under `warm_start_from` when it was saved on the same mesh with the same ranks, and this
+    /// case's converged solutions on those meshes are saved under `warm_start_save`; "" for neither.
+    std::string warm_start_from, warm_start_save;
   };
 
   /// Reads and validates a flow case; throws InputError with file, line and key.

@@ -23,12 +23,13 @@ namespace lentus::sweep
     const char *statements =
       "base case = FILE, results folder = FOLDER, combine = grid|zip, vary KEY = VALUES, fix KEY = VALUE, "
       "table = FILE.csv, cases from = FILE, case NAME ... end, fluid samples = CASE NAME, plot = DESIGN NUMBER, "
-      "plot against = KEY, plot curves = KEY";
+      "plot against = KEY, plot curves = KEY, warm start = none|nearest";
 
     /// The words that start a sweep file's statements.
     const std::vector<std::string> settings_words = {"base case",    "results folder", "combine",
                                                      "table",        "cases from",     "fluid samples",
-                                                     "plot against", "plot curves",    "plot"};
+                                                     "plot against", "plot curves",    "plot",
+                                                     "warm start"};
 
     /// One dimension of the sweep: a vary line, a table or the list of explicit cases.
     struct Dimension
@@ -513,6 +514,11 @@ namespace lentus::sweep
                              word + ": set twice (first on line " + std::to_string(setting_lines[word]) + "); keep one");
           setting_lines[word]  = line_number;
           setting_values[word] = value;
+          if (word == "warm start" && value != "none" && value != "nearest")
+            throw InputError(name, line_number,
+                             "warm start = " + value + ": unknown choice; allowed: none (every case from rest, the "
+                                                       "default), nearest (from the nearest finished case's solution "
+                                                       "on the first mesh)");
           if (word == "combine" && value != "grid" && value != "zip")
             throw InputError(name, line_number,
                              "combine = " + value + ": unknown combination; allowed: grid (every combination), "
@@ -562,6 +568,7 @@ namespace lentus::sweep
 
       // Settings.
       plan.combination = setting_values.count("combine") ? setting_values["combine"] : "grid";
+      plan.warm_start  = setting_values.count("warm start") && setting_values["warm start"] == "nearest";
       check_fluid_samples(plan.combination);
       if (!settings.base_case.empty())
         plan.base_case = settings.base_case;

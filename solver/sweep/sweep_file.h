@@ -20,6 +20,8 @@
 //   plot           = pressure drop inlet to outlet   # design number drawn...
 //   plot against   = Boundary conditions/Inflow rates # ...against this key,
 //   plot curves    = Rheology/Herschel-Bulkley/Yield stress # one curve per value of this one
+//   warm start     = nearest                 # none (default) | nearest: each mesh of a case's sequence
+//                                            # starts from the nearest finished case's solution on it
 //
 // Each `vary` line, each table and the list of explicit cases is one dimension;
 // the grid nests them in file order (the last varies fastest).
@@ -76,6 +78,7 @@ namespace lentus::sweep
     std::string              base_text;      ///< contents of the base case
     std::string              results_folder;
     std::string              combination = "grid"; ///< grid | zip
+    bool                     warm_start  = false;  ///< warm start = nearest: a case starts from a finished neighbour
     std::vector<std::string> varied_keys;    ///< table columns, in file order
     std::vector<std::size_t> dimension_sizes;
     bool                     has_names = false; ///< explicit cases exist

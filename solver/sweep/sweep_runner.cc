@@ -13,12 +13,15 @@
 
 #include <algorithm>
 #include <chrono>
+#include <cmath>
+#include <cstdlib>
 #include <cstdio>
 #include <filesystem>
 #include <fstream>
 #include <iostream>
 #include <map>
 #include <memory>
+#include <optional>
 #include <sstream>
 
 #include <fcntl.h>
@@ -97,6 +100,125 @@ namespace lentus::sweep
       return true;
     }
 
+    /// Where a case's first-mesh solution is kept for warm starts (one file per rank of its group).
+    std::string warm_prefix(const SweepPlan &plan, const std::string &id)
+    {
+      return (fs::path(plan.results_folder) / "warm" / id).string();
+    }
+
+    /// How far apart two cases lie in the varied values: per varied key, a key whose values are
+    /// numbers (or lists of as many numbers) counts the squared differences scaled by the key's range,
+    /// on a logarithmic scale when every value is positive; any other key counts 1 where they differ.
+    /// Cases that differ in a key that may change the mesh or the unknowns (sections Geometry, Flow,
+    /// Accuracy, Nonlinear solver) are infinitely far apart: no warm start between them.
+    class CaseDistances
+    {
+    public:
+      explicit CaseDistances(const SweepPlan &plan)
+      {
+        const std::size_t n = plan.cases.size(), n_keys = plan.varied_keys.size();
+        text.assign(n, std::vector<std::string>(n_keys));
+        numbers.assign(n, std::vector<std::vector<double>>(n_keys));
+        numeric.assign(n_keys, true);
+        for (const std::string &key : plan.varied_keys)
+          shapes_mesh.push_back(key.rfind("Geometry/", 0) == 0 || key.rfind("Flow/", 0) == 0 ||
+                                key.rfind("Accuracy/", 0) == 0 || key.rfind("Nonlinear solver/", 0) == 0);
+        for (std::size_t i = 0; i < n; ++i)
+          for (std::size_t k = 0; k < n_keys; ++k)
+            {
+              for (const Override &value : plan.cases[i].overrides)
+                if (value.path == plan.varied_keys[k])
+                  text[i][k] = value.value;
+              std::string token;
+              std::istringstream stream(text[i][k]);
+              while (std::getline(stream, token, ','))
+                for (std::istringstream words(token); words >> token;)
+                  {
+                    char        *end    = nullptr;
+                    const double number = std::strtod(token.c_str(), &end);
+                    if (end == token.c_str() || *end != '\0' || !std::isfinite(number))
+                      numeric[k] = false;
+                    numbers[i][k].push_back(number);
+                  }
+              if (numbers[i][k].empty() || numbers[i][k].size() != numbers[0][k].size())
+                numeric[k] = false;
+            }
+        // Per key and list position: logarithmic when every value is positive, and the range.
+        logarithmic.assign(n_keys, {});
+        range.assign(n_keys, {});
+        for (std::size_t k = 0; k < n_keys; ++k)
+          if (numeric[k] && n > 0)
+            for (std::size_t t = 0; t < numbers[0][k].size(); ++t)
+              {
+                bool positive = true;
+                for (std::size_t i = 0; i < n; ++i)
+                  positive = positive && numbers[i][k][t] > 0.;
+                double low = INFINITY, high = -INFINITY;
+                for (std::size_t i = 0; i < n; ++i)
+                  {
+                    const double x = positive ? std::log(numbers[i][k][t]) : numbers[i][k][t];
+                    low            = std::min(low, x);
+                    high           = std::max(high, x);
+                  }
+                logarithmic[k].push_back(positive);
+                range[k].push_back(high - low);
+              }
+      }
+
+      double between(const std::size_t a, const std::size_t b) const
+      {
+        double distance = 0.;
+        for (std::size_t k = 0; k < numeric.size(); ++k)
+          if (shapes_mesh[k] && text[a][k] != text[b][k])
+            return INFINITY;
+          else if (!numeric[k])
+            distance += text[a][k] == text[b][k] ? 0. : 1.;
+          else
+            for (std::size_t t = 0; t < range[k].size(); ++t)
+              if (range[k][t] > 0.)
+                {
+                  const double x = numbers[a][k][t], y = numbers[b][k][t];
+                  const double d = (logarithmic[k][t] ? std::log(x) - std::log(y) : x - y) / range[k][t];
+                  distance += d * d;
+                }
+        return distance;
+      }
+
+    private:
+      std::vector<std::vector<std::string>>         text;    ///< [case][key]
+      std::vector<std::vector<std::vector<double>>> numbers; ///< [case][key][list position]
+      std::vector<bool>                             numeric;
+      std::vector<bool>                             shapes_mesh; ///< a difference forbids a warm start
+      std::vector<std::vector<bool>>                logarithmic;
+      std::vector<std::vector<double>>              range;
+    };
+
+    /// The finished case nearest to case `index` whose first-mesh solution was saved by a group of
+    /// `ranks` ranks, or -1 (ties: the case closest in the list).
+    long nearest_finished(const SweepPlan &plan, const CaseDistances &distances, const std::size_t index,
+                          const unsigned int ranks)
+    {
+      long   best          = -1;
+      double best_distance = INFINITY;
+      for (std::size_t j = 0; j < plan.cases.size(); ++j)
+        {
+          if (j == index ||
+              !fs::exists(warm_prefix(plan, plan.cases[j].id) + ".mesh0.0of" + std::to_string(ranks) + ".bin"))
+            continue;
+          const double distance = distances.between(index, j);
+          if (!std::isfinite(distance))
+            continue;
+          const auto   gap      = [&](const long other) { return std::abs(other - static_cast<long>(index)); };
+          if (distance < best_distance ||
+              (distance == best_distance && gap(static_cast<long>(j)) < gap(best)))
+            {
+              best          = static_cast<long>(j);
+              best_distance = distance;
+            }
+        }
+      return best;
+    }
+
     ResultRow start_row(const SweepPlan &plan, const SweepCase &sweep_case)
     {
       ResultRow row;
@@ -112,8 +234,9 @@ namespace lentus::sweep
     }
 
     /// Solves one case on `group` (collective) and returns its row.
+    /// `neighbour`: the case whose first-mesh solution is the start (warm start = nearest), or -1.
     ResultRow solve_case(const SweepPlan &plan, const SweepCase &sweep_case, const input::CaseSchema &schema,
-                         const RunnerOptions &options, MPI_Comm group)
+                         const RunnerOptions &options, MPI_Comm group, const long neighbour = -1)
     {
       int rank = 0, size = 1;
       MPI_Comm_rank(group, &rank);
@@ -135,7 +258,13 @@ namespace lentus::sweep
               rank == 0 ? (fs::path(plan.results_folder) / "output" / (sweep_case.id + ".txt")).string() : "/dev/null");
           const input::CaseFile file =
             input::CaseFile::parse(plan.base_text, plan.base_case, schema, case_overrides(plan, sweep_case));
-          const input::FlowCase flow   = input::read_flow_case(file);
+          input::FlowCase flow = input::read_flow_case(file);
+          if (plan.warm_start)
+            {
+              flow.warm_start_save = warm_prefix(plan, sweep_case.id);
+              if (neighbour >= 0)
+                flow.warm_start_from = warm_prefix(plan, plan.cases[static_cast<std::size_t>(neighbour)].id);
+            }
           const flow::RunResult result = flow::run_flow_case(flow, group);
           row.status            = result.converged ? status::converged : status::not_converged;
           row.reason            = result.reason;
@@ -279,14 +408,14 @@ namespace lentus::sweep
                 {
                   const std::string name = entry.path().filename().string();
                   if (name[0] != '.' && name != "plan.txt" && name != "cases" && name != "rows" && name != "claims" &&
-                      name != "attempts" && name != "output" && name != "runner.lock" && name != "results.csv" &&
+                      name != "attempts" && name != "output" && name != "warm" && name != "runner.lock" && name != "results.csv" &&
                       name != "results.jsonl" && name != "plot.png" && name != "fluid_uncertainty.csv" &&
                       name != "fluid_uncertainty.jsonl" && name != "fluid_uncertainty.png")
                     throw InputError("results folder = " + plan.results_folder + ": holds " + name +
                                      ", which a sweep does not write; allowed: a new folder, or one an earlier "
                                      "sweep wrote");
                 }
-            for (const char *sub : {"cases", "rows", "claims", "attempts", "output"})
+            for (const char *sub : {"cases", "rows", "claims", "attempts", "output", "warm"})
               fs::create_directories(folder / sub);
             if (!options.case_index)
               {
@@ -296,7 +425,8 @@ namespace lentus::sweep
                                    ": another sweep runner is working in it (runner.lock is held); allowed: wait "
                                    "for it to finish, or choose another folder with --output");
                 // Half-written files of a run that died: temporary files and partial case folders.
-                for (const fs::path &place : {folder, folder / "rows", folder / "attempts", folder / "cases"})
+                for (const fs::path &place :
+                     {folder, folder / "rows", folder / "attempts", folder / "cases", folder / "warm"})
                   for (const auto &entry : fs::directory_iterator(place))
                     {
                       const std::string name = entry.path().filename().string();
@@ -362,7 +492,8 @@ namespace lentus::sweep
                          "--case-index = " + std::to_string(index) + ": no such case; allowed: 0 to " +
                            std::to_string(plan.cases.size() - 1) + " (the sweep has " +
                            std::to_string(plan.cases.size()) + " cases)");
-      int         lock_file = -1;
+      int         lock_file = -1, size = 1;
+      MPI_Comm_size(world, &size);
       std::size_t done_before = 0, retried = 0;
       prepare_folder(plan, options, world, lock_file, done_before, retried);
       const SweepCase &sweep_case = plan.cases[index];
@@ -377,7 +508,11 @@ namespace lentus::sweep
             print_line(sweep_case.id + ": done earlier (" + row.status + "); nothing to do");
           return exit_code::success;
         }
-      row = solve_case(plan, sweep_case, schema, options, world);
+      long neighbour = -1;
+      if (rank == 0 && plan.warm_start)
+        neighbour = nearest_finished(plan, CaseDistances(plan), index, static_cast<unsigned int>(size));
+      MPI_Bcast(&neighbour, 1, MPI_LONG, 0, world);
+      row = solve_case(plan, sweep_case, schema, options, world, neighbour);
       if (rank == 0)
         {
           write_row(plan.results_folder, row);
@@ -449,6 +584,10 @@ namespace lentus::sweep
       print_line("Table of the uncertainty from the fluid: " + report.fluid_csv_path + " and " +
                  report.fluid_jsonl_path + "\n" +
                  report.fluid_summary.substr(0, report.fluid_summary.find_last_not_of('\n') + 1));
+    // The solutions kept for warm starts are not results: gone once every case has its row.
+    std::error_code ignored;
+    if (report.missing.empty())
+      fs::remove_all(fs::path(plan.results_folder) / "warm", ignored);
     print_caution();
     return report.missing.empty() ? exit_code::success : exit_code::failure;
   }
@@ -500,10 +639,13 @@ namespace lentus::sweep
 
     Progress    progress(plan, groups);
     std::size_t cursor = 0;
+    std::optional<CaseDistances> distances;
+    if (leader && plan.warm_start)
+      distances.emplace(plan);
     while (true)
       {
-        // [case index or -1, 1 = record as crashed without solving]
-        long next[2] = {-1, 0};
+        // [case index or -1, 1 = record as crashed without solving, the warm start's case or -1]
+        long next[3] = {-1, 0, -1};
         if (leader)
           for (; cursor < plan.cases.size(); ++cursor)
             {
@@ -520,10 +662,12 @@ namespace lentus::sweep
                 }
               next[0] = static_cast<long>(cursor);
               next[1] = attempts_of(plan, candidate.id) >= options.max_attempts;
+              if (distances)
+                next[2] = nearest_finished(plan, *distances, cursor, k);
               ++cursor;
               break;
             }
-        MPI_Bcast(next, 2, MPI_LONG, 0, group);
+        MPI_Bcast(next, 3, MPI_LONG, 0, group);
         if (next[0] < 0)
           break;
         const SweepCase &sweep_case = plan.cases[static_cast<std::size_t>(next[0])];
@@ -538,7 +682,7 @@ namespace lentus::sweep
                          " times (killed, or it crashed the process); not tried again";
           }
         else
-          row = solve_case(plan, sweep_case, schema, options, group);
+          row = solve_case(plan, sweep_case, schema, options, group, next[2]);
         if (leader)
           {
             write_row(plan.results_folder, row);

@@ -10,6 +10,8 @@ usage: scenarios.py SCENARIO LENTUS MPIEXEC WORKDIR
   slurm    scripts/slurm_sweep.sbatch: array tasks, collect, then the one-job form
   attempts a case runs died on --attempts times is recorded as crashed; a held lock refuses a runner
   fluid    lentus fit's samples of the demo paste swept over the demo pipe: fluid_uncertainty.csv
+  warm     warm start = nearest: the same answers as from rest in fewer nonlinear steps, on 1 rank and
+           on groups of 2 ranks
 Exits 1 with a message on the first failed check.
 """
 import csv
@@ -365,6 +367,93 @@ def scenario_fluid(lentus, mpiexec, work):
         check(handle.read() == first, "collect wrote another fluid_uncertainty.csv than the sweep")
 
 
+def nonlinear_steps(folder):
+    """Nonlinear steps of every solve of one case (summary.json numerics/solves)."""
+    with open(os.path.join(folder, "summary.json"), encoding="utf-8") as handle:
+        solves = json.load(handle)["numerics"]["solves"]
+    return sum(len(solve["iterations"]) for solve in solves)
+
+
+def same_numbers(header, a, b, relative, what):
+    """Each design number of row b within `relative` of row a, measured against the larger of the
+    two values and the largest magnitude of the same unit in the row (a number that is zero up to
+    round-off, such as the mean pressure on an outlet held at 0 Pa, has no relative size of its own)."""
+    first, last = header.index("reason") + 1, header.index("Newton iterations")
+    scale = {}
+    values = {}
+    for column in range(first, last):
+        try:
+            values[column] = (float(a[column]), float(b[column]))
+        except ValueError:
+            continue
+        unit = header[column][header[column].rfind("["):]
+        scale[unit] = max(scale.get(unit, 0.), abs(values[column][0]), abs(values[column][1]))
+    for column, (x, y) in values.items():
+        unit = header[column][header[column].rfind("["):]
+        check(abs(x - y) <= relative * max(abs(x), abs(y), scale[unit]) + 1e-300,
+              f"{a[0]} {header[column]}: {x} from rest, {y} {what}")
+
+
+def scenario_warm(lentus, mpiexec, work):
+    warm_sweep = os.path.join(HERE, "warm_start.sweep")
+    cold_sweep = os.path.join(work, "cold.sweep")  # the same cases, every one from rest
+    with open(warm_sweep, encoding="utf-8") as handle:
+        text = handle.read()
+    check("warm start = nearest" in text, "warm_start.sweep does not ask for warm starts")
+    text = text.replace("warm start = nearest", "warm start = none").replace(
+        "../../cases/", os.path.join(os.path.dirname(os.path.dirname(HERE)), "cases") + "/")
+    with open(cold_sweep, "w", encoding="utf-8") as handle:
+        handle.write(text)
+    cold, warm, pair = (os.path.join(work, name) for name in ("cold", "warm", "pair"))
+    run([lentus, "sweep", cold_sweep, "--output", cold])
+    run([lentus, "sweep", warm_sweep, "--output", warm])
+    hc, rc = each_case_once(cold, 12)
+    hw, rw = each_case_once(warm, 12)
+    status, refinement = hc.index("status"), hc.index("Geometry/Refinement")
+    check(all(row[status] == "converged" for row in rc + rw), "not every case converged")
+    by_id = {row[0]: row for row in rw}
+    steps = {"cold": 0, "warm": 0}
+    started_warm = 0
+    for name, folder in (("cold", cold), ("warm", warm)):
+        for case_id in sorted(os.listdir(os.path.join(folder, "cases"))):
+            steps[name] += nonlinear_steps(os.path.join(folder, "cases", case_id))
+    for case_id in sorted(by_id):
+        with open(os.path.join(warm, "cases", case_id, "log.txt"), encoding="utf-8") as handle:
+            log = handle.read()
+        # A warm start comes only from a case on the same mesh (its file names that case).
+        for line in log.splitlines():
+            if line.startswith("Warm start from "):
+                neighbour = os.path.basename(line[len("Warm start from "):].strip())
+                check(neighbour in by_id and neighbour != case_id, f"{case_id}: warm start from '{neighbour}'")
+                check(by_id[neighbour][refinement] == by_id[case_id][refinement],
+                      f"{case_id}: warm start from {neighbour}, solved on another mesh")
+                started_warm += 1
+                break
+    # On 1 rank the cases run in order: all but the first on each mesh find a finished neighbour.
+    check(started_warm == 10, f"{started_warm} of 12 cases started warm; expected 10 (all but the first per mesh)")
+    # The same answers: each design number within 1e-6 relative of the one from rest, the nonlinear
+    # solver's tolerance leaving the converged iterate about 1e-8 relative from the discrete solution
+    # (common practice: answers from two starts agree to the solver's tolerance).
+    for a, b in zip(rc, rw):
+        same_numbers(hc, a, b, 1e-6, "warm")
+    print(f"nonlinear steps of all 12 cases: {steps['cold']} from rest, {steps['warm']} warm "
+          f"(ratio {steps['cold'] / steps['warm']:.2f})")
+    check(steps["warm"] < steps["cold"], "warm starts took no fewer nonlinear steps")
+    # Groups of 2 ranks save and read one file per rank.
+    run([mpiexec] + MPI_FLAGS + ["-np", "2", lentus, "sweep", warm_sweep, "--output", pair, "--ranks-per-case", "2"])
+    hp, rp = each_case_once(pair, 12)
+    check(all(row[hp.index("status")] == "converged" for row in rp), "not every case converged on 2 ranks")
+    started = 0
+    for case_id in os.listdir(os.path.join(pair, "cases")):
+        with open(os.path.join(pair, "cases", case_id, "log.txt"), encoding="utf-8") as handle:
+            started += "Warm start from " in handle.read()
+    check(started == 10, f"{started} of 12 cases started warm on 2 ranks; expected 10")
+    # The kept solutions are not results: removed once every case has its row.
+    check(not os.path.exists(os.path.join(pair, "warm")), "the warm-start solutions were left in the results folder")
+    for a, b in zip(rc, rp):
+        same_numbers(hc, a, b, 1e-6, "warm on 2 ranks")
+
+
 def main():
     if len(sys.argv) != 5:
         fail(__doc__)
@@ -388,6 +477,8 @@ def main():
         scenario_array(lentus, mpiexec, work)
     elif scenario == "fluid":
         scenario_fluid(lentus, mpiexec, work)
+    elif scenario == "warm":
+        scenario_warm(lentus, mpiexec, work)
     else:
         fail("unknown scenario " + scenario)
     print("passed: " + scenario)
