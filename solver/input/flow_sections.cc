@@ -171,7 +171,8 @@ namespace lentus::input
                                   "direct: sparse LU (MUMPS); iterative: FGMRES with a block-triangular "
                                   "preconditioner (AMG on velocity, 1/eta-weighted pressure mass matrix).");
     keys.integer("Direct up to", direct_limit, 1, 1000000000,
-                 "automatic chooses the direct solver up to this many unknowns.");
+                 "automatic chooses the direct solver up to this many unknowns (it took 2.8 GiB at 592 387 "
+                 "unknowns on one rank), the iterative one above.");
   }
 
   void AccuracySection::bind(SectionKeys &keys)
