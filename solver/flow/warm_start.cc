@@ -1,4 +1,4 @@
-// A sweep's warm start: the first mesh's converged flow solution saved to one file per rank,
+// A sweep's warm start: a converged flow solution on one mesh saved to one file per rank,
 // and read back as the start of a neighbouring case solved on the same mesh with as many ranks.
 #include "solver/flow/flow_state.h"
 #include "solver/report/atomic_file.h"

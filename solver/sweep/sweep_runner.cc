@@ -100,7 +100,8 @@ namespace lentus::sweep
       return true;
     }
 
-    /// Where a case's first-mesh solution is kept for warm starts (one file per rank of its group).
+    /// Where a case's solutions on the meshes of its sequence are kept for warm starts (a file per mesh
+    /// and rank of its group).
     std::string warm_prefix(const SweepPlan &plan, const std::string &id)
     {
       return (fs::path(plan.results_folder) / "warm" / id).string();
@@ -193,7 +194,7 @@ namespace lentus::sweep
       std::vector<std::vector<double>>              range;
     };
 
-    /// The finished case nearest to case `index` whose first-mesh solution was saved by a group of
+    /// The finished case nearest to case `index` whose solution on the first mesh was saved by a group of
     /// `ranks` ranks, or -1 (ties: the case closest in the list).
     long nearest_finished(const SweepPlan &plan, const CaseDistances &distances, const std::size_t index,
                           const unsigned int ranks)
@@ -234,7 +235,7 @@ namespace lentus::sweep
     }
 
     /// Solves one case on `group` (collective) and returns its row.
-    /// `neighbour`: the case whose first-mesh solution is the start (warm start = nearest), or -1.
+    /// `neighbour`: the case whose saved solutions are the starts (warm start = nearest), or -1.
     ResultRow solve_case(const SweepPlan &plan, const SweepCase &sweep_case, const input::CaseSchema &schema,
                          const RunnerOptions &options, MPI_Comm group, const long neighbour = -1)
     {
