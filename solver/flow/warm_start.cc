@@ -3,12 +3,9 @@
 #include "solver/flow/flow_state.h"
 #include "solver/report/atomic_file.h"
 
-#include <deal.II/grid/grid_tools.h>
-
 #include <cstdint>
 #include <cstring>
 #include <fstream>
-#include <iterator>
 
 namespace lentus::flow
 {

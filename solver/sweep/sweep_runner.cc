@@ -4,6 +4,7 @@
 #include "solver/flow/flow_run.h"
 #include "solver/input/case_file.h"
 #include "solver/input/flow_case.h"
+#include "solver/input/value_kind.h"
 #include "solver/report/accuracy.h"
 #include "solver/report/atomic_file.h"
 #include "solver/report/caution_text.h"
@@ -14,7 +15,6 @@
 #include <algorithm>
 #include <chrono>
 #include <cmath>
-#include <cstdlib>
 #include <cstdio>
 #include <filesystem>
 #include <fstream>
@@ -130,17 +130,13 @@ namespace lentus::sweep
               for (const Override &value : plan.cases[i].overrides)
                 if (value.path == plan.varied_keys[k])
                   text[i][k] = value.value;
-              std::string token;
-              std::istringstream stream(text[i][k]);
-              while (std::getline(stream, token, ','))
-                for (std::istringstream words(token); words >> token;)
-                  {
-                    char        *end    = nullptr;
-                    const double number = std::strtod(token.c_str(), &end);
-                    if (end == token.c_str() || *end != '\0' || !std::isfinite(number))
-                      numeric[k] = false;
-                    numbers[i][k].push_back(number);
-                  }
+              for (const std::string &item : input::split_list(text[i][k]))
+                {
+                  const std::optional<double> number = input::parse_real(item);
+                  if (!number || !std::isfinite(*number))
+                    numeric[k] = false;
+                  numbers[i][k].push_back(number.value_or(0.));
+                }
               if (numbers[i][k].empty() || numbers[i][k].size() != numbers[0][k].size())
                 numeric[k] = false;
             }
